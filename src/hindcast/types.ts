@@ -14,7 +14,11 @@ export interface HindcastYear {
   readonly climatology: number;
   readonly fireYear: boolean;
   readonly categoryProbabilities: readonly [number, number, number];
+  /** The left-in category shares, the climatological forecast for the RPSS. */
+  readonly climatologyCategories: readonly [number, number, number];
   readonly observedCategory: 0 | 1 | 2;
+  /** Which past years the forecast was read from: a joint phase, a single index phase, or climatology. */
+  readonly basis: "joint" | "single" | "climatology";
 }
 
 export interface Skill {

@@ -1,0 +1,150 @@
+import { compositeFireRecord } from "../record/composite.js";
+import { benjaminiHochberg } from "../stats/benjaminiHochberg.js";
+import { meanAndStandardDeviation } from "../stats/meanAndStandardDeviation.js";
+import type { Workspace } from "../workspace/types.js";
+import { activityByYear, valuesByYear } from "./activityByYear.js";
+import { aggregatedLagCorrelation } from "./aggregatedLagCorrelation.js";
+import { buildTrainingSet, phaseCounts, type IndexValues } from "./buildTrainingSet.js";
+import { calibrationPeriod } from "./calibrationPeriod.js";
+import { contingencyByPhase } from "./contingencyByPhase.js";
+import { proportionEstimate } from "./proportionEstimate.js";
+import { seaForIndex } from "./seaForIndex.js";
+import { stabilityWindows } from "./stabilityWindows.js";
+import type { Calibration, IndexCalibration, PhaseOdds } from "./types.js";
+
+/**
+ * Calibrates a region: composites the fire record, picks the fire years and activity terciles of
+ * the calibration period, and for each index computes the conditional odds of a fire year by phase,
+ * the contingency tests, the superposed epoch analysis, the aggregated lag correlation and the
+ * stability through time. Benjamini–Hochberg q-values (Benjamini Y., Hochberg Y. 1995, "Controlling
+ * the false discovery rate", JRSS B 57:289–300) are computed across all indices' chi-square tests.
+ * Pure: the same workspace (and seed) gives the same Calibration.
+ */
+export function runCalibration(workspace: Workspace): Calibration {
+  const { settings } = workspace;
+  const record = compositeFireRecord(workspace.fireRecord, settings.fireYears.minSitesRecording);
+  const activity = activityByYear(record, settings.fireYears.measure);
+  const period = calibrationPeriod(settings, record, workspace.indices);
+  const indexValues: IndexValues = new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)]));
+  const training = buildTrainingSet({
+    years: period.years,
+    activity,
+    indexValues,
+    indexSettings: settings.indices,
+    top: settings.fireYears.top,
+    measure: settings.fireYears.measure,
+  });
+  const method = settings.methods.interval;
+  const n = period.years.length;
+  const baseRate = proportionEstimate(training.fireYears.years.length, n, method);
+  const warnings: { code: string; message: string }[] = [];
+  const thinInPeriod = record.thinYears.filter((year) => year >= period.first && year <= period.last);
+  if (thinInPeriod.length > 0) {
+    warnings.push({
+      code: "thin-years-left-out",
+      message: `${thinInPeriod.length} year(s) of ${period.first}–${period.last} have fewer than ${settings.fireYears.minSitesRecording} recording sites and are left out of the calibration`,
+    });
+  }
+  if (n < 50) {
+    warnings.push({ code: "short-record", message: `only ${n} calibration years: every estimate is uncertain` });
+  }
+
+  const calibrated: IndexCalibration[] = settings.indices.map((indexSettings) => {
+    const name = indexSettings.name;
+    const series = workspace.indices.find((candidate) => candidate.name === name);
+    const values = indexValues.get(name) ?? new Map<number, number>();
+    const definition = training.definitions.get(name);
+    if (series === undefined || definition === undefined) throw new RangeError(`index ${name} was not loaded`);
+    const counts = phaseCounts(training, name);
+    const baseEstimate = baseRate.estimate;
+    const phases: PhaseOdds[] = counts.map((cell, phase) => {
+      const probability = proportionEstimate(cell.fireYears, cell.years.length, method);
+      const label = definition.labels[phase] ?? String(phase);
+      const smallSample = cell.years.length < settings.methods.smallSampleYears;
+      if (smallSample) {
+        warnings.push({
+          code: "small-phase-sample",
+          message: `${name} ${label}: only ${cell.years.length} calibration year(s) — its odds are very uncertain`,
+        });
+      }
+      return {
+        label,
+        years: cell.years.length,
+        fireYears: cell.fireYears,
+        probability,
+        ratioToBase:
+          probability.estimate !== null && baseEstimate !== null && baseEstimate > 0 ? probability.estimate / baseEstimate : null,
+        categories: cell.categories,
+        smallSample,
+      };
+    });
+    const contingency = contingencyByPhase(definition.labels, counts);
+    if (contingency.smallExpectedShare > 0.2) {
+      warnings.push({
+        code: "small-expected-counts",
+        message: `${name}: ${Math.round(contingency.smallExpectedShare * 100)}% of expected counts are below 5, so the chi-square p-value is approximate; the Fisher exact tests do not need large counts`,
+      });
+    }
+    const sea = seaForIndex({
+      series,
+      first: period.first,
+      last: period.last,
+      eventYears: training.fireYears.years,
+      firstLag: settings.methods.seaFirstLag,
+      lastLag: settings.methods.seaLastLag,
+      draws: settings.methods.seaDraws,
+      seed: settings.seed,
+    });
+    const aggregated = aggregatedLagCorrelation({
+      first: period.first,
+      last: period.last,
+      activity: new Map(period.years.map((year) => [year, activity.get(year) as number])),
+      index: values,
+      blockYears: settings.methods.blockYears,
+      maxLag: settings.methods.blockMaxLag,
+    });
+    const windows = stabilityWindows({
+      training,
+      index: name,
+      first: period.first,
+      last: period.last,
+      width: settings.methods.stabilityWindow,
+      step: settings.methods.stabilityStep,
+      interval: method,
+    });
+    const calibrationValues = period.years.flatMap((year) => (values.has(year) ? [values.get(year) as number] : []));
+    const moments = meanAndStandardDeviation(calibrationValues);
+    return {
+      name,
+      definition,
+      years: calibrationValues.length,
+      phases,
+      contingency,
+      sea,
+      aggregated,
+      stability: { window: settings.methods.stabilityWindow, step: settings.methods.stabilityStep, windows },
+      mean: moments.mean,
+      sd: moments.sd,
+    };
+  });
+
+  const qValues = benjaminiHochberg(calibrated.map((index) => index.contingency.pValue ?? NaN));
+  const indices = calibrated.map((index, i) => {
+    const q = qValues[i];
+    return { ...index, contingency: { ...index.contingency, qValue: q !== undefined && Number.isFinite(q) ? q : null } };
+  });
+
+  return {
+    region: { name: settings.name },
+    period: { first: period.first, last: period.last, years: n },
+    years: period.years,
+    activity: new Map(period.years.map((year) => [year, activity.get(year) as number])),
+    fireYears: training.fireYears,
+    categories: training.categories,
+    baseRate,
+    indices,
+    interval: method,
+    seed: settings.seed,
+    warnings,
+  };
+}
