@@ -12,6 +12,11 @@ import { seaForIndex } from "./seaForIndex.js";
 import { stabilityWindows } from "./stabilityWindows.js";
 import type { Calibration, IndexCalibration, PhaseOdds } from "./types.js";
 
+export interface CalibrationOptions {
+  /** Called before each index is calibrated (the CLI shows it on a terminal). */
+  readonly onProgress?: (message: string) => void;
+}
+
 /**
  * Calibrates a region: composites the fire record, picks the fire years and activity terciles of
  * the calibration period, and for each index computes the conditional odds of a fire year by phase,
@@ -20,7 +25,7 @@ import type { Calibration, IndexCalibration, PhaseOdds } from "./types.js";
  * the false discovery rate", JRSS B 57:289–300) are computed across all indices' chi-square tests.
  * Pure: the same workspace (and seed) gives the same Calibration.
  */
-export function runCalibration(workspace: Workspace): Calibration {
+export function runCalibration(workspace: Workspace, options: CalibrationOptions = {}): Calibration {
   const { settings } = workspace;
   const record = compositeFireRecord(workspace.fireRecord, settings.fireYears.minSitesRecording);
   const activity = activityByYear(record, settings.fireYears.measure);
@@ -49,8 +54,9 @@ export function runCalibration(workspace: Workspace): Calibration {
     warnings.push({ code: "short-record", message: `only ${n} calibration years: every estimate is uncertain` });
   }
 
-  const calibrated: IndexCalibration[] = settings.indices.map((indexSettings) => {
+  const calibrated: IndexCalibration[] = settings.indices.map((indexSettings, position) => {
     const name = indexSettings.name;
+    options.onProgress?.(`calibrating ${name} (${position + 1} of ${settings.indices.length}): ${settings.methods.seaDraws} random draws for the epoch analysis`);
     const series = workspace.indices.find((candidate) => candidate.name === name);
     const values = indexValues.get(name) ?? new Map<number, number>();
     const definition = training.definitions.get(name);

@@ -1,0 +1,104 @@
+import { Command } from "commander";
+import { runCalibration } from "../calibrate/runCalibration.js";
+import { toCalibrationJson } from "../calibrate/toCalibrationJson.js";
+import type { Calibration, IndexCalibration } from "../calibrate/types.js";
+import { formatPercent, formatPercentRange } from "../outlook/describeChance.js";
+import { loadWorkspace } from "../workspace/loadWorkspace.js";
+import { handleError } from "./handleError.js";
+import { printJson } from "./printJson.js";
+import { fixed, formatP, textTable } from "./textTable.js";
+
+/** `firephase calibrate <region> [--json]`: how each index phase has shifted the odds of a fire year. */
+export function calibrateCommand(): Command {
+  return new Command("calibrate")
+    .description("calibrate how each climate-index phase has shifted the odds of a fire year in this region's record")
+    .argument("<region>", "region folder (holds region.json)")
+    .option("--json", "print the calibration as JSON (schema firephase.calibration/1)")
+    .action(async (region: string, options: { json?: boolean }) => {
+      try {
+        const workspace = await loadWorkspace(region);
+        const calibration = runCalibration(workspace, { onProgress: progressReporter() });
+        if (options.json === true) printJson(toCalibrationJson(calibration));
+        else process.stdout.write(formatCalibration(calibration));
+      } catch (error) {
+        handleError(error);
+      }
+    });
+}
+
+/** Progress lines on stderr, only when stderr is a terminal (never in pipes, logs or tests). */
+export function progressReporter(): ((message: string) => void) | undefined {
+  if (process.stderr.isTTY !== true) return undefined;
+  return (message) => process.stderr.write(`${message}\n`);
+}
+
+/** The human summary of a calibration: one compact table per index. */
+export function formatCalibration(calibration: Calibration): string {
+  const out: string[] = [];
+  const { period, fireYears, baseRate, categories } = calibration;
+  const measure = fireYears.measure === "fraction" ? "share of recording sites burned" : "number of sites burned";
+  out.push(`Calibration — ${calibration.region.name}`);
+  out.push(`Period ${period.first}–${period.last}: ${period.years} years with enough recording sites`);
+  out.push(
+    `Fire years: ${fireYears.years.length} (top ${formatPercent(fireYears.top)} by ${measure}; threshold ${fixed(fireYears.threshold, 3)}; realised share ${formatPercent(fireYears.realisedShare)})`,
+  );
+  out.push(`Base rate: ${formatPercent(baseRate.estimate)} of years are fire years (95% interval ${formatPercentRange(baseRate.lower, baseRate.upper)})`);
+  const shares = categories.realisedShares;
+  out.push(
+    `Activity categories (terciles): below normal ≤ ${fixed(categories.lowerCut, 3)} (${formatPercent(shares.below)} of years), near normal (${formatPercent(shares.near)}), above normal > ${fixed(categories.upperCut, 3)} (${formatPercent(shares.above)})`,
+  );
+  for (const index of calibration.indices) out.push("", ...formatIndex(index));
+  if (calibration.warnings.length > 0) {
+    out.push("", "Warnings:");
+    for (const warning of calibration.warnings) out.push(`  - ${warning.message}`);
+  }
+  out.push("", "Statistical odds from past years only; see SAFETY.md. Official agency outlooks and fire-danger forecasts come first.");
+  return `${out.join("\n")}\n`;
+}
+
+function formatIndex(index: IndexCalibration): string[] {
+  const rule =
+    index.definition.rule === "cuts"
+      ? `fixed cuts ${index.definition.cuts.join(" / ")}`
+      : `terciles of the calibration period (${index.definition.cuts.map((cut) => cut.toFixed(2)).join(" / ")})`;
+  const c = index.contingency;
+  const lines = [
+    `${index.name} — ${index.years} years, phases by ${rule}`,
+    `  chi-square ${fixed(c.chiSquare, 2)} (df ${c.df}), p ${formatP(c.pValue)}, q ${formatP(c.qValue)} (false discovery rate across indices)` +
+      (c.reason !== undefined ? ` — not enough data: ${c.reason}` : ""),
+  ];
+  const rows = index.phases.map((phase, i) => [
+    phase.label + (phase.smallSample ? " (few years)" : ""),
+    String(phase.years),
+    String(phase.fireYears),
+    formatPercent(phase.probability.estimate),
+    formatPercentRange(phase.probability.lower, phase.probability.upper),
+    fixed(phase.ratioToBase, 2),
+    formatP(c.perPhase[i]?.fisherPValue),
+  ]);
+  lines.push(textTable(["phase", "years", "fire years", "P(fire year)", "95% interval", "× base rate", "Fisher p"], rows));
+  const sea = index.sea;
+  if (sea.reason !== undefined) {
+    lines.push(`  Superposed epoch analysis: not enough data (${sea.reason})`);
+  } else {
+    const significant = sea.lags.flatMap((lag, i) => {
+      const p = sea.pValue[i];
+      const mean = sea.mean[i];
+      return p !== null && p !== undefined && p < 0.05 && mean !== null && mean !== undefined
+        ? [`lag ${lag > 0 ? "+" : ""}${lag}: ${mean >= 0 ? "+" : ""}${mean.toFixed(2)} (p ${formatP(p)}, q ${formatP(sea.qValue[i])})`]
+        : [];
+    });
+    lines.push(
+      `  Superposed epoch analysis (${sea.eventYears.length} fire years, ${sea.draws} random draws): ` +
+        (significant.length === 0 ? "no lag departs from chance at p < 0.05" : `departures at p < 0.05 — ${significant.join("; ")}`),
+    );
+  }
+  const agg = index.aggregated;
+  const zero = agg.lags.indexOf(0);
+  lines.push(
+    agg.reason !== undefined
+      ? `  ${agg.blockYears}-year blocks: not enough data (${agg.reason})`
+      : `  ${agg.blockYears}-year blocks (${agg.blocks}): r at lag 0 = ${fixed(agg.r[zero], 2)} (p ${formatP(agg.pValue[zero])}, effective n ${fixed(agg.effectiveN[zero], 1)})`,
+  );
+  return lines;
+}

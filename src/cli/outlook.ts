@@ -1,0 +1,106 @@
+import { Command } from "commander";
+import { runCalibration } from "../calibrate/runCalibration.js";
+import { buildOutlook } from "../outlook/buildOutlook.js";
+import { formatPercent, formatPercentRange, headline } from "../outlook/describeChance.js";
+import { toOutlookJson } from "../outlook/toOutlookJson.js";
+import type { Outlook } from "../outlook/types.js";
+import { loadWorkspace } from "../workspace/loadWorkspace.js";
+import { progressReporter } from "./calibrate.js";
+import { handleError } from "./handleError.js";
+import { resolveOutlookRequest } from "./outlookRequest.js";
+import { printJson } from "./printJson.js";
+import { fixed, textTable } from "./textTable.js";
+
+/** `firephase outlook <region> [--values NAME=V,…] [--issued DATE] [--season YEAR] [--json]`. */
+export function outlookCommand(): Command {
+  return new Command("outlook")
+    .description("odds of a high-fire year for this season's index values, analog years and hindcast skill")
+    .argument("<region>", "region folder (holds region.json)")
+    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json)")
+    .option("--issued <date>", "issue date YYYY-MM-DD (default: region.json, then today)")
+    .option("--season <year>", "fire season year (default: region.json, then the issue year)")
+    .option("--json", "print the outlook as JSON (schema firephase.outlook/1)")
+    .action(async (region: string, options: { values?: string; issued?: string; season?: string; json?: boolean }) => {
+      try {
+        const workspace = await loadWorkspace(region);
+        const request = resolveOutlookRequest(workspace, options, new Date());
+        const calibration = runCalibration(workspace, { onProgress: progressReporter() });
+        const outlook = buildOutlook(workspace, calibration, request);
+        if (options.json === true) printJson(toOutlookJson(outlook));
+        else process.stdout.write(formatOutlook(outlook));
+      } catch (error) {
+        handleError(error);
+      }
+    });
+}
+
+/** The one-screen human outlook: plain statement first, then odds, analogs and skill. */
+export function formatOutlook(outlook: Outlook): string {
+  const out: string[] = [];
+  const skill = outlook.hindcast;
+  out.push(`Fire-season outlook — ${outlook.region}, ${outlook.season} season (issued ${outlook.issued})`);
+  out.push("");
+  out.push(headline(outlook.fireYear.estimate, outlook.baseRate.estimate));
+  out.push(skill.verdict);
+  out.push("");
+  out.push(
+    `Chance of a high-fire year: ${formatPercent(outlook.fireYear.estimate)} (95% interval ${formatPercentRange(outlook.fireYear.lower, outlook.fireYear.upper)}); ` +
+      `base rate ${formatPercent(outlook.baseRate.estimate)} (${formatPercentRange(outlook.baseRate.lower, outlook.baseRate.upper)})`,
+  );
+  out.push(`  read from ${outlook.fireYear.basis}`);
+  const c = outlook.categories;
+  out.push(
+    `Fire activity: below normal ${formatPercent(c.below.estimate)}, near normal ${formatPercent(c.near.estimate)}, above normal ${formatPercent(c.above.estimate)}`,
+  );
+  out.push("");
+  out.push("This season's index phases:");
+  out.push(
+    textTable(
+      ["index", "value", "phase", "P(fire year) in this phase", "95% interval", "years"],
+      outlook.current.map((phase) => {
+        const odds = outlook.perIndex.find((entry) => entry.index === phase.index);
+        return [
+          phase.index,
+          fixed(phase.value, 2),
+          phase.label + (phase.nearBoundary ? " (near a phase boundary)" : ""),
+          formatPercent(odds?.probability.estimate ?? null),
+          formatPercentRange(odds?.probability.lower ?? null, odds?.probability.upper ?? null),
+          String(odds?.years ?? 0),
+        ];
+      }),
+    ),
+  );
+  if (outlook.missing.length > 0) out.push(`  no current value (left out): ${outlook.missing.join(", ")}`);
+  out.push("");
+  out.push(
+    `Analog years (nearest in standardized index space): ${outlook.analogs.filter((a) => a.fireYear).length} of ${outlook.analogs.length} were fire years` +
+      ` (${formatPercent(outlook.analogFireShare.estimate)}, 95% interval ${formatPercentRange(outlook.analogFireShare.lower, outlook.analogFireShare.upper)})`,
+  );
+  out.push(
+    textTable(
+      ["year", "distance", "fire year", "activity", "category"],
+      outlook.analogs.map((analog) => [
+        String(analog.year),
+        fixed(analog.distance, 2),
+        analog.fireYear ? "yes" : "no",
+        fixed(analog.activity, 3),
+        `${analog.category} normal`,
+      ]),
+    ),
+  );
+  out.push("");
+  out.push(
+    `Hindcast (${skill.years} years, each left out with ${skill.exclusion} years either side): ` +
+      `Brier skill score ${fixed(skill.brierSkillScore, 3)}, RPSS ${fixed(skill.rpss, 3)}, ROC area ${fixed(skill.rocArea, 3)} ± ${fixed(skill.rocStandardError, 3)}` +
+      (skill.reason !== undefined ? ` — not enough data: ${skill.reason}` : ""),
+  );
+  out.push(`  rule: ${skill.rule}`);
+  if (outlook.warnings.length > 0) {
+    out.push("", "Warnings:");
+    for (const warning of outlook.warnings) out.push(`  - ${warning.message}`);
+  }
+  out.push("");
+  out.push("Caution: a statistical long-range outlook. It does not replace official agency outlooks, fire-danger ratings,");
+  out.push("local codes or the direction of qualified fire personnel, and must never be used for tactical or evacuation decisions.");
+  return `${out.join("\n")}\n`;
+}

@@ -1,0 +1,65 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { activityByYear, valuesByYear } from "../../src/calibrate/activityByYear.js";
+import { runHindcast, type HindcastInput } from "../../src/hindcast/runHindcast.js";
+import { compositeFireRecord } from "../../src/record/composite.js";
+import { syntheticWorkspace, type SyntheticOptions } from "../helpers/syntheticWorkspace.js";
+
+function hindcastInput(options: SyntheticOptions): HindcastInput {
+  const workspace = syntheticWorkspace(options);
+  const record = compositeFireRecord(workspace.fireRecord, 3);
+  return {
+    years: record.usableYears,
+    activity: activityByYear(record, "fraction"),
+    indexValues: new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)])),
+    indexSettings: workspace.settings.indices,
+    indices: ["A", "B"],
+    top: 0.1,
+    measure: "fraction",
+    exclusion: 2,
+    jointMinYears: 10,
+  };
+}
+
+describe("runHindcast(input)", () => {
+  it("finds skill in an invented region with a planted index–fire link", () => {
+    const skill = runHindcast(hindcastInput({ effect: 1.6, seed: 11 }));
+    expect(skill.years).toBe(290);
+    expect(skill.brierSkillScore).toBeGreaterThan(0);
+    expect(skill.rocArea).toBeGreaterThan(0.65);
+    expect(skill.hasSkill).toBe(true);
+    expect(skill.verdict).toMatch(/^Some skill/);
+  });
+
+  it("says plainly that a pure-noise region has no skill", () => {
+    for (const seed of [3, 5, 8]) {
+      const skill = runHindcast(hindcastInput({ effect: 0, seed }));
+      expect(skill.hasSkill).toBe(false);
+      expect(skill.verdict).toMatch(/^No skill/);
+    }
+  });
+
+  it("leaves every year out with two years either side: a year's own fire status never changes its own forecast", () => {
+    const base = hindcastInput({ effect: 1, seed: 21, first: 1801, last: 1900 });
+    const before = runHindcast(base);
+    fc.assert(
+      fc.property(fc.integer({ min: 1801, max: 1900 }), fc.constantFrom(0, 1), (target, newActivity) => {
+        const activity = new Map(base.activity);
+        activity.set(target, newActivity);
+        const after = runHindcast({ ...base, activity });
+        const own = (skill: typeof before) => skill.forecasts.find((forecast) => forecast.year === target);
+        expect(own(after)?.probability).toBe(own(before)?.probability);
+        expect(own(after)?.categoryProbabilities).toEqual(own(before)?.categoryProbabilities);
+        expect(own(after)?.climatology).toBe(own(before)?.climatology);
+      }),
+      { numRuns: 12, seed: 4 },
+    );
+  });
+
+  it("reports null scores with a reason when there are too few years", () => {
+    const skill = runHindcast(hindcastInput({ effect: 1, first: 1901, last: 1906 }));
+    expect(skill.brierSkillScore).toBeNull();
+    expect(skill.reason).toMatch(/hindcast years/);
+    expect(skill.hasSkill).toBe(false);
+  });
+});
