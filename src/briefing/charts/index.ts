@@ -1,0 +1,22 @@
+/** SVG charts of the PDF briefing: pure functions from plain chart inputs to `<svg>` strings. */
+export { escapeXml } from "./escapeXml.js";
+export { palette, paletteColour, coloursUsedTogether, minimumDeltaE } from "./palette.js";
+export type { ChartPalette, HexColour, PaletteRole } from "./palette.js";
+export type { ChartOptions } from "./svgParts.js";
+export { NOT_ENOUGH_DATA, FONT_FAMILY } from "./svgParts.js";
+export { oddsByPhaseChart } from "./oddsByPhaseChart.js";
+export type { ChartInterval, OddsByPhaseRow, OddsByPhaseChartInput } from "./oddsByPhaseChart.js";
+export { seaChart } from "./seaChart.js";
+export type { ChartLimits, SeaChartInput } from "./seaChart.js";
+export { phaseSpaceScatter } from "./phaseSpaceScatter.js";
+export type { PhaseSpacePoint, PhaseSpaceScatterInput } from "./phaseSpaceScatter.js";
+export { activityTimeline } from "./activityTimeline.js";
+export type { ActivityTimelineYear, ActivityTimelineInput } from "./activityTimeline.js";
+export { reliabilityDiagram } from "./reliabilityDiagram.js";
+export type { ReliabilityChartBin, ReliabilityDiagramInput } from "./reliabilityDiagram.js";
+export { rocCurveChart } from "./rocCurveChart.js";
+export type { RocChartPoint, RocCurveChartInput } from "./rocCurveChart.js";
+export { stabilityChart } from "./stabilityChart.js";
+export type { StabilityChartWindow, StabilityChartInput } from "./stabilityChart.js";
+export { categoryOddsBar } from "./categoryOddsBar.js";
+export type { CategoryOddsBarInput } from "./categoryOddsBar.js";

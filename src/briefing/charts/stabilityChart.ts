@@ -1,0 +1,132 @@
+import { scaleLinear } from "d3-scale";
+import { area, line, symbol, symbolCircle, symbolDiamond, symbolSquare, symbolTriangle, type SymbolType } from "d3-shape";
+import type { ChartInterval } from "./oddsByPhaseChart.js";
+import { palette } from "./palette.js";
+import {
+  attrs,
+  axisBottom,
+  axisVertical,
+  type ChartOptions,
+  coord,
+  formatPercent,
+  isDrawable,
+  legend,
+  makeFrame,
+  notEnoughData,
+  svgOpen,
+} from "./svgParts.js";
+
+/** One moving window in {@link stabilityChart}. */
+export interface StabilityChartWindow {
+  /** First calendar year of the window. */
+  readonly first: number;
+  /** Last calendar year of the window. */
+  readonly last: number;
+  /** Chance of a fire year per phase in this window (matched to `labels` by label). */
+  readonly phases: readonly (ChartInterval & { readonly label: string })[];
+}
+
+/** Input of {@link stabilityChart}. */
+export interface StabilityChartInput {
+  /** Windows in any order. */
+  readonly windows: readonly StabilityChartWindow[];
+  /** Phase labels to draw, in legend order (escaped). */
+  readonly labels: readonly string[];
+  /** Chance of a fire year over the whole calibration period, in [0, 1] (null: not drawn). */
+  readonly baseRate: number | null;
+}
+
+const MARGINS = { top: 12, right: 16, bottom: 64, left: 60 };
+const MARKERS: readonly SymbolType[] = [symbolCircle, symbolTriangle, symbolSquare, symbolDiamond];
+const DASHES: readonly (string | undefined)[] = [undefined, "7 3", "2 2", "9 3 2 3"];
+
+/**
+ * Stability of the phase odds through time: for each phase, the chance of a fire year in moving
+ * windows plotted at each window's middle year ((first + last) / 2), as a line with a marker
+ * shape of its own and a light band across its interval, beside the dashed base-rate line.
+ *
+ * The y axis runs 0–100% (whole-percent ticks); x ticks are integer years. A window where a phase
+ * has a null estimate breaks that phase's line; null limits break its band. With no drawable
+ * estimate the plot shows "not enough data" over the axes. More than four phases reuse the four
+ * series colours with a different dash pattern.
+ *
+ * @param input - windows, phase labels and base rate.
+ * @param options - viewBox width (default 680) and height (default 260).
+ * @returns a self-contained `<svg>` string.
+ * @throws RangeError when a width or height option is out of range.
+ * @example
+ * stabilityChart({ labels: ["warm"], baseRate: 0.1, windows: [
+ *   { first: 1700, last: 1799, phases: [{ label: "warm", estimate: 0.2, lower: 0.1, upper: 0.35 }] }] });
+ * // => '<svg xmlns="http://www.w3.org/2000/svg" …</svg>'
+ * @see Wilson E.B. (1927) "Probable inference, the law of succession, and statistical inference",
+ * Journal of the American Statistical Association 22(158):209–212 (the interval drawn by default).
+ */
+export function stabilityChart(input: Readonly<StabilityChartInput>, options?: ChartOptions): string {
+  const frame = makeFrame(options, { width: 680, height: 260 }, MARGINS);
+  const windows = input.windows
+    .filter((window) => isDrawable(window.first) && isDrawable(window.last))
+    .map((window) => ({ middle: (window.first + window.last) / 2, window }))
+    .sort((a, b) => a.middle - b.middle);
+  const middles = windows.map((entry) => entry.middle);
+  const low = middles.length > 0 ? Math.min(...middles) : 0;
+  const high = middles.length > 0 ? Math.max(...middles) : 100;
+  const x = scaleLinear()
+    .domain(low === high ? [low - 10, high + 10] : [low, high])
+    .range([frame.left + 8, frame.right - 8]);
+  const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
+
+  let body = axisBottom(x, frame, { title: "Middle year of window", ticks: 8, format: "d" });
+  body += axisVertical(y, frame, { title: "Chance of a fire year", ticks: 5, format: ".0%", grid: true });
+  if (isDrawable(input.baseRate)) {
+    body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(input.baseRate), y2: y(input.baseRate), stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`;
+  }
+
+  type Point = { middle: number; estimate: number | null; lower: number | null; upper: number | null };
+  let drawn = 0;
+  const entries: { symbol: string; label: string }[] = [];
+  input.labels.forEach((label, index) => {
+    const colour = palette.series[index % palette.series.length] ?? palette.estimate;
+    const marker = symbol(MARKERS[index % MARKERS.length] ?? symbolCircle, 36)() ?? "";
+    const dash = DASHES[Math.floor(index / palette.series.length) % DASHES.length];
+    const points: Point[] = windows.map(({ middle, window }) => {
+      const phase = window.phases.find((candidate) => candidate.label === label);
+      return {
+        middle,
+        estimate: phase && isDrawable(phase.estimate) ? phase.estimate : null,
+        lower: phase && isDrawable(phase.lower) ? phase.lower : null,
+        upper: phase && isDrawable(phase.upper) ? phase.upper : null,
+      };
+    });
+    const band = area<Point>()
+      .defined((point) => point.lower !== null && point.upper !== null)
+      .x((point) => x(point.middle))
+      .y0((point) => y(point.lower ?? 0))
+      .y1((point) => y(point.upper ?? 0))(points);
+    if (band) body += `<path${attrs({ d: band, fill: colour, "fill-opacity": 0.12 })}/>`;
+    const path = line<Point>()
+      .defined((point) => point.estimate !== null)
+      .x((point) => x(point.middle))
+      .y((point) => y(point.estimate ?? 0))(points);
+    if (path) body += `<path${attrs({ d: path, fill: "none", stroke: colour, "stroke-width": 2, "stroke-dasharray": dash })}/>`;
+    for (const point of points) {
+      if (point.estimate === null) continue;
+      drawn += 1;
+      body += `<path${attrs({ d: marker, transform: `translate(${coord(x(point.middle))} ${coord(y(point.estimate))})`, fill: colour, stroke: "#ffffff", "stroke-width": 0.8 })}/>`;
+    }
+    entries.push({
+      symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: colour, "stroke-width": 2, "stroke-dasharray": dash })}/><path${attrs({ d: marker, fill: colour })}/>`,
+      label,
+    });
+  });
+  if (drawn === 0) body += notEnoughData(frame);
+  entries.push({
+    symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`,
+    label: isDrawable(input.baseRate) ? `Base rate (${formatPercent(input.baseRate)})` : "Base rate: not enough data",
+  });
+  entries.push({
+    symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.series[0], "fill-opacity": 0.12 })}/>`,
+    label: "95% interval",
+  });
+  body += legend(entries, frame.left, frame.bottom + 52, frame.right - frame.left);
+  return `${svgOpen(frame, "Chance of a fire year by phase in moving windows")}${body}</svg>`;
+}

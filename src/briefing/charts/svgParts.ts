@@ -1,0 +1,383 @@
+/**
+ * Shared building blocks of the briefing charts: the frame, coordinates, fixed number formats,
+ * axes drawn from d3-scale ticks, legends and the "not enough data" notice. Every text node
+ * passes through {@link escapeXml}.
+ */
+import type { ScaleBand, ScaleLinear } from "d3-scale";
+import { escapeXml } from "./escapeXml.js";
+import { palette } from "./palette.js";
+
+/** Size options common to every chart, in SVG user units (1 unit ≈ 1 CSS px at 100%). */
+export interface ChartOptions {
+  /** viewBox width; default 680 (a ~170 mm page column). Range: 200–4000. */
+  readonly width?: number;
+  /** viewBox height; each chart has its own default. Range: 120–4000. */
+  readonly height?: number;
+}
+
+/** The drawing area of a chart: outer size, margins and the inner plot rectangle. */
+export interface Frame {
+  readonly width: number;
+  readonly height: number;
+  readonly left: number;
+  readonly right: number;
+  readonly top: number;
+  readonly bottom: number;
+}
+
+/** Margins around the plot rectangle, in user units. */
+export interface Margins {
+  readonly top: number;
+  readonly right: number;
+  readonly bottom: number;
+  readonly left: number;
+}
+
+/** The font stack of every chart; the briefing page embeds Source Sans 3. */
+export const FONT_FAMILY = "'Source Sans 3', sans-serif";
+/** Tick and legend label size, px. */
+export const LABEL_SIZE = 11;
+/** Axis title size, px. */
+export const AXIS_TITLE_SIZE = 12;
+/** The words shown where a chart or a part of it cannot be drawn. */
+export const NOT_ENOUGH_DATA = "not enough data";
+
+/**
+ * True when a value is a finite number (not null, undefined, NaN or ±Infinity).
+ *
+ * @param value - anything.
+ * @returns whether it can be drawn.
+ * @example
+ * isDrawable(null); // => false
+ */
+export function isDrawable(value: unknown): value is number {
+  return typeof value === "number" && Number.isFinite(value);
+}
+
+/**
+ * Builds the frame of a chart from the caller's options and the chart's defaults.
+ *
+ * @param options - caller's width and height (optional).
+ * @param defaults - the chart's default width and height.
+ * @param margins - margins around the plot area.
+ * @returns the frame.
+ * @throws RangeError when a width or height is not a finite number in its range.
+ * @example
+ * makeFrame({}, { width: 680, height: 260 }, { top: 10, right: 10, bottom: 40, left: 50 }).right; // => 670
+ */
+export function makeFrame(
+  options: ChartOptions | undefined,
+  defaults: { readonly width: number; readonly height: number },
+  margins: Margins,
+): Frame {
+  const width = options?.width ?? defaults.width;
+  const height = options?.height ?? defaults.height;
+  if (!isDrawable(width) || width < 200 || width > 4000) {
+    throw new RangeError(`chart width must be a number from 200 to 4000 (got ${String(width)})`);
+  }
+  if (!isDrawable(height) || height < 120 || height > 4000) {
+    throw new RangeError(`chart height must be a number from 120 to 4000 (got ${String(height)})`);
+  }
+  return {
+    width,
+    height,
+    left: margins.left,
+    right: width - margins.right,
+    top: margins.top,
+    bottom: height - margins.bottom,
+  };
+}
+
+/**
+ * A coordinate as SVG text, rounded to 0.01 unit.
+ *
+ * @param value - a finite number.
+ * @returns the number with at most two decimals, never "-0".
+ * @throws RangeError for a non-finite value (a drawing bug: charts filter missing data first).
+ * @example
+ * coord(12.3456); // => "12.35"
+ */
+export function coord(value: number): string {
+  if (!Number.isFinite(value)) throw new RangeError(`non-finite coordinate ${String(value)}`);
+  const rounded = Math.round(value * 100) / 100;
+  return String(rounded === 0 ? 0 : rounded);
+}
+
+/**
+ * Fixed percent format of a probability: whole percent, e.g. 0.4249 → "42%".
+ *
+ * @param probability - a probability in [0, 1].
+ * @returns the percent text.
+ * @example
+ * formatPercent(0.4249); // => "42%"
+ */
+export function formatPercent(probability: number): string {
+  return `${Math.round(probability * 100)}%`;
+}
+
+/**
+ * Fixed signed format with a given number of decimals and a true minus sign (U+2212).
+ *
+ * @param value - a finite number.
+ * @param decimals - decimals, 0–6.
+ * @returns e.g. "−0.25", "0.10", "+2" when `plus` is set.
+ * @example
+ * formatSigned(-0.254, 2); // => "−0.25"
+ */
+export function formatSigned(value: number, decimals: number, plus = false): string {
+  const text = Math.abs(value).toFixed(decimals);
+  const isZero = Number(text) === 0;
+  if (value < 0 && !isZero) return `\u2212${text}`;
+  if (plus && value > 0 && !isZero) return `+${text}`;
+  return text;
+}
+
+/** Attributes as an SVG attribute string; values are escaped, undefined ones skipped. */
+export function attrs(values: Readonly<Record<string, string | number | undefined>>): string {
+  let out = "";
+  for (const [name, value] of Object.entries(values)) {
+    if (value === undefined) continue;
+    out += ` ${name}="${escapeXml(typeof value === "number" ? coord(value) : value)}"`;
+  }
+  return out;
+}
+
+/**
+ * A text element with escaped content.
+ *
+ * @param x - x position.
+ * @param y - baseline y position.
+ * @param content - the text (any string; escaped).
+ * @param extra - further attributes (text-anchor, font-size, fill …).
+ * @returns the `<text>` element.
+ * @example
+ * svgText(0, 10, "a<b"); // => '<text x="0" y="10">a&lt;b</text>'
+ */
+export function svgText(
+  x: number,
+  y: number,
+  content: string,
+  extra: Readonly<Record<string, string | number | undefined>> = {},
+): string {
+  return `<text${attrs({ x, y, ...extra })}>${escapeXml(content)}</text>`;
+}
+
+/**
+ * The opening `<svg>` tag of a chart: viewBox of the frame size, 100% wide, the chart font,
+ * an accessible label and a white background.
+ *
+ * @param frame - the chart frame.
+ * @param label - accessible description (escaped).
+ * @returns the opening tag plus the background rectangle.
+ * @example
+ * svgOpen(frame, "Odds by phase").startsWith("<svg"); // => true
+ */
+export function svgOpen(frame: Frame, label: string): string {
+  return (
+    `<svg xmlns="http://www.w3.org/2000/svg"` +
+    attrs({
+      viewBox: `0 0 ${coord(frame.width)} ${coord(frame.height)}`,
+      width: "100%",
+      preserveAspectRatio: "xMidYMid meet",
+      role: "img",
+      "aria-label": label,
+      "font-family": FONT_FAMILY,
+      "font-size": LABEL_SIZE,
+      fill: palette.ink,
+    }) +
+    `><title>${escapeXml(label)}</title>` +
+    `<rect${attrs({ x: 0, y: 0, width: frame.width, height: frame.height, fill: "#ffffff" })}/>`
+  );
+}
+
+/** Options of a linear axis. */
+export interface AxisOptions {
+  /** Axis title (escaped). */
+  readonly title: string;
+  /** Approximate number of ticks passed to scale.ticks(). */
+  readonly ticks?: number;
+  /** A d3-format specifier passed to scale.tickFormat(), e.g. ".0%", "d", ".1f". */
+  readonly format?: string;
+  /** Draw light grid lines across the plot at each tick. */
+  readonly grid?: boolean;
+  /** Colour of tick labels and title (default muted ink). */
+  readonly colour?: string;
+}
+
+function tickList(scale: ScaleLinear<number, number>, options: AxisOptions): { value: number; label: string }[] {
+  const count = options.ticks ?? 5;
+  const format = scale.tickFormat(count, options.format);
+  return scale.ticks(count).map((value) => ({ value, label: format(value) }));
+}
+
+/**
+ * A bottom axis along the plot's lower edge, from scale.ticks() and scale.tickFormat().
+ *
+ * @param scale - a d3 linear scale whose range is the plot's x extent.
+ * @param frame - the chart frame.
+ * @param options - title, tick count, format, grid.
+ * @returns SVG elements of the axis.
+ * @example
+ * axisBottom(scaleLinear().domain([0, 1]).range([50, 670]), frame, { title: "Chance", format: ".0%" });
+ */
+export function axisBottom(scale: ScaleLinear<number, number>, frame: Frame, options: AxisOptions): string {
+  const colour = options.colour ?? palette.inkMuted;
+  let out = `<g class="axis axis-x">`;
+  for (const tick of tickList(scale, options)) {
+    const x = scale(tick.value);
+    if (options.grid) out += `<line${attrs({ x1: x, x2: x, y1: frame.top, y2: frame.bottom, stroke: palette.grid })}/>`;
+    out += `<line${attrs({ x1: x, x2: x, y1: frame.bottom, y2: frame.bottom + 4, stroke: palette.inkMuted })}/>`;
+    out += svgText(x, frame.bottom + 16, tick.label, { "text-anchor": "middle", fill: colour });
+  }
+  out += `<line${attrs({ x1: frame.left, x2: frame.right, y1: frame.bottom, y2: frame.bottom, stroke: palette.inkMuted })}/>`;
+  out += svgText((frame.left + frame.right) / 2, frame.bottom + 33, options.title, {
+    "text-anchor": "middle",
+    "font-size": AXIS_TITLE_SIZE,
+    fill: palette.ink,
+  });
+  return `${out}</g>`;
+}
+
+/**
+ * A vertical axis at the plot's left or right edge, from scale.ticks() and scale.tickFormat();
+ * the title is written rotated beside the tick labels.
+ *
+ * @param scale - a d3 linear scale whose range is the plot's y extent.
+ * @param frame - the chart frame.
+ * @param options - title, tick count, format, grid, colour.
+ * @param side - "left" (default) or "right".
+ * @returns SVG elements of the axis.
+ * @example
+ * axisVertical(scaleLinear().domain([0, 1]).range([220, 10]), frame, { title: "Hit rate" });
+ */
+export function axisVertical(
+  scale: ScaleLinear<number, number>,
+  frame: Frame,
+  options: AxisOptions,
+  side: "left" | "right" = "left",
+): string {
+  const colour = options.colour ?? palette.inkMuted;
+  const x0 = side === "left" ? frame.left : frame.right;
+  const direction = side === "left" ? -1 : 1;
+  let out = `<g class="axis axis-y-${side}">`;
+  let widest = 0;
+  for (const tick of tickList(scale, options)) {
+    const y = scale(tick.value);
+    if (options.grid) out += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y, y2: y, stroke: palette.grid })}/>`;
+    out += `<line${attrs({ x1: x0, x2: x0 + 4 * direction, y1: y, y2: y, stroke: palette.inkMuted })}/>`;
+    out += svgText(x0 + 7 * direction, y + 4, tick.label, {
+      "text-anchor": side === "left" ? "end" : "start",
+      fill: colour,
+    });
+    widest = Math.max(widest, estimateTextWidth(tick.label));
+  }
+  out += `<line${attrs({ x1: x0, x2: x0, y1: frame.top, y2: frame.bottom, stroke: palette.inkMuted })}/>`;
+  const titleX = x0 + direction * (widest + 16);
+  const titleY = (frame.top + frame.bottom) / 2;
+  out += svgText(titleX, titleY, options.title, {
+    "text-anchor": "middle",
+    "font-size": AXIS_TITLE_SIZE,
+    fill: options.colour ?? palette.ink,
+    transform: `rotate(${side === "left" ? -90 : 90} ${coord(titleX)} ${coord(titleY)})`,
+  });
+  return `${out}</g>`;
+}
+
+/**
+ * A bottom axis for a band scale: one label per band, centred.
+ *
+ * @param scale - a d3 band scale over the plot's x extent.
+ * @param frame - the chart frame.
+ * @param title - axis title.
+ * @param label - text of each band's tick.
+ * @returns SVG elements of the axis.
+ * @example
+ * axisBottomBand(scaleBand().domain(["a"]).range([50, 670]), frame, "Lag", (key) => key);
+ */
+export function axisBottomBand(
+  scale: ScaleBand<string>,
+  frame: Frame,
+  title: string,
+  label: (key: string) => string,
+): string {
+  let out = `<g class="axis axis-x">`;
+  for (const key of scale.domain()) {
+    const start = scale(key);
+    if (start === undefined) continue;
+    const x = start + scale.bandwidth() / 2;
+    out += `<line${attrs({ x1: x, x2: x, y1: frame.bottom, y2: frame.bottom + 4, stroke: palette.inkMuted })}/>`;
+    out += svgText(x, frame.bottom + 16, label(key), { "text-anchor": "middle", fill: palette.inkMuted });
+  }
+  out += `<line${attrs({ x1: frame.left, x2: frame.right, y1: frame.bottom, y2: frame.bottom, stroke: palette.inkMuted })}/>`;
+  out += svgText((frame.left + frame.right) / 2, frame.bottom + 33, title, {
+    "text-anchor": "middle",
+    "font-size": AXIS_TITLE_SIZE,
+    fill: palette.ink,
+  });
+  return `${out}</g>`;
+}
+
+/**
+ * The words "not enough data", centred in the plot area.
+ *
+ * @param frame - the chart frame.
+ * @returns a `<text>` element.
+ * @example
+ * notEnoughData(frame).includes("not enough data"); // => true
+ */
+export function notEnoughData(frame: Frame): string {
+  return svgText((frame.left + frame.right) / 2, (frame.top + frame.bottom) / 2 + 5, NOT_ENOUGH_DATA, {
+    "text-anchor": "middle",
+    "font-size": 14,
+    fill: palette.inkMuted,
+    class: "not-enough-data",
+  });
+}
+
+/**
+ * Approximate width of a label in Source Sans 3 at the given size (0.5 em per character):
+ * used only to place legend entries and axis titles.
+ *
+ * @param text - the label.
+ * @param size - font size in px.
+ * @returns the estimated width in user units.
+ * @example
+ * estimateTextWidth("abcd", 10); // => 20
+ */
+export function estimateTextWidth(text: string, size: number = LABEL_SIZE): number {
+  return [...text].length * size * 0.5;
+}
+
+/** One legend entry: a symbol drawn in a 16 × 12 box whose centre is (0, 0), and its label. */
+export interface LegendEntry {
+  readonly symbol: string;
+  readonly label: string;
+}
+
+/**
+ * A one-row legend (wrapping to further rows when wider than `maxWidth`).
+ *
+ * @param entries - symbols and labels.
+ * @param x - left edge.
+ * @param y - centre line of the first row.
+ * @param maxWidth - width available.
+ * @returns a `<g>` element.
+ * @example
+ * legend([{ symbol: "<circle r='4'/>", label: "Fire years" }], 50, 10, 600);
+ */
+export function legend(entries: readonly LegendEntry[], x: number, y: number, maxWidth: number): string {
+  let out = `<g class="legend">`;
+  let cursorX = x;
+  let cursorY = y;
+  for (const entry of entries) {
+    const width = 22 + estimateTextWidth(entry.label) + 16;
+    if (cursorX > x && cursorX + width - x > maxWidth) {
+      cursorX = x;
+      cursorY += 16;
+    }
+    out += `<g transform="translate(${coord(cursorX + 8)} ${coord(cursorY)})">${entry.symbol}</g>`;
+    out += svgText(cursorX + 22, cursorY + 4, entry.label, { fill: palette.ink });
+    cursorX += width;
+  }
+  return `${out}</g>`;
+}
