@@ -1,0 +1,78 @@
+import type { ProblemList } from "./InputError.js";
+
+const INTEGER = /^[+-]?\d+$/;
+const DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/** How a field's text is shown in a problem: quoted, or "an empty cell". */
+export function foundText(text: string): string {
+  if (text === "") return "found an empty cell";
+  return `found ${JSON.stringify(text.length > 40 ? `${text.slice(0, 37)}...` : text)}`;
+}
+
+/** Limits on a number read from a field; both bounds inclusive. */
+export interface FieldRange {
+  readonly min?: number;
+  readonly max?: number;
+}
+
+function checkRange(value: number, column: string, range: FieldRange, text: string, line: number, problems: ProblemList): number | null {
+  if ((range.min !== undefined && value < range.min) || (range.max !== undefined && value > range.max)) {
+    const bounds =
+      range.min !== undefined && range.max !== undefined
+        ? `between ${range.min} and ${range.max}`
+        : range.min !== undefined
+          ? `at least ${range.min}`
+          : `at most ${String(range.max)}`;
+    problems.add(line, `${column} must be ${bounds} (${foundText(text)})`);
+    return null;
+  }
+  return value;
+}
+
+/**
+ * Integer field reader: a whole number written in decimal digits with an optional sign.
+ *
+ * @returns the number, or null after adding a problem `column must be an integer (found "…")`
+ * @example
+ * readInteger("1750", "year", 4, problems); // => 1750
+ */
+export function readInteger(text: string, column: string, line: number, problems: ProblemList, range: FieldRange = {}): number | null {
+  const value = INTEGER.test(text) ? Number(text) : NaN;
+  if (!Number.isSafeInteger(value)) {
+    problems.add(line, `${column} must be an integer (${foundText(text)})`);
+    return null;
+  }
+  return checkRange(value, column, range, text, line, problems);
+}
+
+/**
+ * Decimal field reader: a finite number such as `-0.5`, `1.2e3` or `.25` (no thousands separators).
+ *
+ * @returns the number, or null after adding a problem `column must be a number (found "…")`
+ * @example
+ * readNumber("-0.5", "ENSO", 9, problems); // => -0.5
+ */
+export function readNumber(text: string, column: string, line: number, problems: ProblemList, range: FieldRange = {}): number | null {
+  const value = DECIMAL.test(text) ? Number(text) : NaN;
+  if (!Number.isFinite(value)) {
+    problems.add(line, `${column} must be a number (${foundText(text)})`);
+    return null;
+  }
+  return checkRange(value, column, range, text, line, problems);
+}
+
+/**
+ * Optional decimal field reader: an empty cell is a missing value.
+ *
+ * @returns the number; `null` for an empty cell; `undefined` after adding a problem
+ */
+export function readOptionalNumber(
+  text: string,
+  column: string,
+  line: number,
+  problems: ProblemList,
+  range: FieldRange = {},
+): number | null | undefined {
+  if (text === "") return null;
+  return readNumber(text, column, line, problems, range) ?? undefined;
+}

@@ -1,0 +1,149 @@
+import { readCsvTable } from "./csvTable.js";
+import { readInteger, readNumber, readOptionalNumber } from "./fields.js";
+import type { ProblemList } from "./InputError.js";
+import type { ActivityRow, FireEvent, ModernFireRow, Site, Warning } from "./types.js";
+
+/** A value read from a CSV row, with the line it came from. */
+export interface Located<T> {
+  readonly line: number;
+  readonly value: T;
+}
+
+/** Years are whole numbers in this range (years before 1 CE are zero or negative). */
+const YEAR_RANGE = { min: -9999, max: 9999 } as const;
+
+/** Adds a problem for every value whose key was already seen, naming both lines. */
+function checkUnique<T>(rows: readonly Located<T>[], key: (value: T) => string, describe: (value: T) => string, problems: ProblemList): void {
+  const first = new Map<string, number>();
+  for (const row of rows) {
+    const k = key(row.value);
+    const earlier = first.get(k);
+    if (earlier === undefined) first.set(k, row.line);
+    else problems.add(row.line, `${describe(row.value)} appears twice (lines ${earlier} and ${row.line})`);
+  }
+}
+
+/**
+ * Sites reader for `fire-sites.csv` (`site,latitude,longitude,first_year,last_year`, optional
+ * `name`): one row per site; the recording span first_year…last_year is inclusive.
+ *
+ * @param bytes - the file's content
+ * @param problems - collects every problem: a missing id, latitude outside −90…90, longitude
+ *   outside −180…180, non-integer years, first_year after last_year, a site id given twice
+ * @returns the valid sites with their lines
+ */
+export function readSitesCsv(bytes: Uint8Array, problems: ProblemList): Located<Site>[] {
+  const table = readCsvTable(bytes, ["site", "latitude", "longitude", "first_year", "last_year"], problems);
+  if (table === null) return [];
+  const sites: Located<Site>[] = [];
+  for (const row of table.rows) {
+    const id = row.field("site");
+    if (id === "") problems.add(row.line, "site must not be empty (found an empty cell)");
+    const latitude = readNumber(row.field("latitude"), "latitude", row.line, problems, { min: -90, max: 90 });
+    const longitude = readNumber(row.field("longitude"), "longitude", row.line, problems, { min: -180, max: 180 });
+    const firstYear = readInteger(row.field("first_year"), "first_year", row.line, problems, YEAR_RANGE);
+    const lastYear = readInteger(row.field("last_year"), "last_year", row.line, problems, YEAR_RANGE);
+    if (firstYear !== null && lastYear !== null && firstYear > lastYear) {
+      problems.add(row.line, `first_year must not be after last_year (found ${firstYear} > ${lastYear})`);
+      continue;
+    }
+    if (id === "" || latitude === null || longitude === null || firstYear === null || lastYear === null) continue;
+    const name = row.field("name");
+    sites.push({ line: row.line, value: { id, name: name === "" ? null : name, latitude, longitude, firstYear, lastYear } });
+  }
+  checkUnique(sites, (site) => site.id, (site) => `site "${site.id}"`, problems);
+  return sites;
+}
+
+/**
+ * Fire events reader for `fire-events.csv` (`site,year`): one row per site and fire year. A
+ * repeated (site, year) pair is counted once and reported as one warning for the file.
+ *
+ * @param bytes - the file's content
+ * @param problems - collects problems: an empty site id, a year that is not an integer
+ * @param file - the file as shown to the user, for the warning
+ * @returns the distinct events with the line of their first row, and the warnings
+ */
+export function readEventsCsv(bytes: Uint8Array, problems: ProblemList, file: string): { events: Located<FireEvent>[]; warnings: Warning[] } {
+  const table = readCsvTable(bytes, ["site", "year"], problems);
+  if (table === null) return { events: [], warnings: [] };
+  const events: Located<FireEvent>[] = [];
+  const firstLine = new Map<string, number>();
+  const repeats: string[] = [];
+  for (const row of table.rows) {
+    const site = row.field("site");
+    if (site === "") problems.add(row.line, "site must not be empty (found an empty cell)");
+    const year = readInteger(row.field("year"), "year", row.line, problems, YEAR_RANGE);
+    if (site === "" || year === null) continue;
+    const key = `${site}\u0000${year}`;
+    const earlier = firstLine.get(key);
+    if (earlier !== undefined) {
+      repeats.push(`${site} ${year} (lines ${earlier} and ${row.line})`);
+      continue;
+    }
+    firstLine.set(key, row.line);
+    events.push({ line: row.line, value: { site, year } });
+  }
+  const warnings: Warning[] = [];
+  if (repeats.length > 0) {
+    const shown = repeats.slice(0, 5).join("; ");
+    const more = repeats.length > 5 ? `; and ${repeats.length - 5} more` : "";
+    warnings.push({
+      code: "duplicate-event",
+      message: `${file}: ${repeats.length} repeated fire event${repeats.length === 1 ? "" : "s"} counted once: ${shown}${more}`,
+    });
+  }
+  return { events, warnings };
+}
+
+/**
+ * Composited record reader for `fire-activity.csv` (`year,sites_recording,sites_burned`).
+ *
+ * @param bytes - the file's content
+ * @param problems - collects problems: non-integer or repeated years, counts that are not
+ *   integers ≥ 0, sites_burned greater than sites_recording
+ * @returns the valid rows
+ */
+export function readActivityCsv(bytes: Uint8Array, problems: ProblemList): Located<ActivityRow>[] {
+  const table = readCsvTable(bytes, ["year", "sites_recording", "sites_burned"], problems);
+  if (table === null) return [];
+  const rows: Located<ActivityRow>[] = [];
+  for (const row of table.rows) {
+    const year = readInteger(row.field("year"), "year", row.line, problems, YEAR_RANGE);
+    const sitesRecording = readInteger(row.field("sites_recording"), "sites_recording", row.line, problems, { min: 0 });
+    const sitesBurned = readInteger(row.field("sites_burned"), "sites_burned", row.line, problems, { min: 0 });
+    if (sitesRecording !== null && sitesBurned !== null && sitesBurned > sitesRecording) {
+      problems.add(row.line, `sites_burned must not exceed sites_recording (found ${sitesBurned} > ${sitesRecording})`);
+      continue;
+    }
+    if (year === null || sitesRecording === null || sitesBurned === null) continue;
+    rows.push({ line: row.line, value: { year, sitesRecording, sitesBurned } });
+  }
+  checkUnique(rows, (r) => String(r.year), (r) => `year ${r.year}`, problems);
+  return rows;
+}
+
+/**
+ * Modern fire record reader for `modern-fires.csv` (`year,fires,area_ha`); an empty cell is a
+ * missing value.
+ *
+ * @param bytes - the file's content
+ * @param problems - collects problems: non-integer or repeated years, a negative or fractional
+ *   count of fires, a negative area
+ * @returns the valid rows
+ */
+export function readModernCsv(bytes: Uint8Array, problems: ProblemList): Located<ModernFireRow>[] {
+  const table = readCsvTable(bytes, ["year", "fires", "area_ha"], problems);
+  if (table === null) return [];
+  const rows: Located<ModernFireRow>[] = [];
+  for (const row of table.rows) {
+    const year = readInteger(row.field("year"), "year", row.line, problems, YEAR_RANGE);
+    const firesText = row.field("fires");
+    const fires = firesText === "" ? null : readInteger(firesText, "fires", row.line, problems, { min: 0 });
+    const areaHa = readOptionalNumber(row.field("area_ha"), "area_ha", row.line, problems, { min: 0 });
+    if (year === null || (firesText !== "" && fires === null) || areaHa === undefined) continue;
+    rows.push({ line: row.line, value: { year, fires, areaHa } });
+  }
+  checkUnique(rows, (r) => String(r.year), (r) => `year ${r.year}`, problems);
+  return rows;
+}
