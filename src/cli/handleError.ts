@@ -1,0 +1,56 @@
+import { CommanderError } from "commander";
+import { formatProblem, InputError } from "../workspace/InputError.js";
+import { EXIT_CODES, UsageError } from "./errors.js";
+
+/** Where error messages go; defaults to the process's stderr and environment. */
+export interface ErrorOutput {
+  readonly writeErr: (text: string) => void;
+  /** Print the stack of an internal error (FIREPHASE_DEBUG=1). */
+  readonly debug: boolean;
+}
+
+const defaultOutput = (): ErrorOutput => ({
+  writeErr: (text) => process.stderr.write(text),
+  debug: process.env.FIREPHASE_DEBUG === "1",
+});
+
+/**
+ * Error reporter of the CLI, the only place that turns errors into messages and exit codes:
+ * - `InputError` → each problem on its own stderr line, `file:line: message` (or `file: message`), exit 1;
+ * - `UsageError` → `firephase: message`, exit 2;
+ * - a commander usage error (unknown option, missing argument …) → exit 2 (commander has already
+ *   printed its message); help and `--version` → exit 0;
+ * - anything else → `firephase: internal error: message`, exit 1, with the stack only when the
+ *   environment variable FIREPHASE_DEBUG is 1.
+ * Sets `process.exitCode` (never calls `process.exit`) so that output is flushed and tests can run
+ * the program in-process.
+ *
+ * @param error - whatever was thrown
+ * @param output - where to write (default: stderr, FIREPHASE_DEBUG from the environment)
+ * @returns the exit code, also stored in `process.exitCode`
+ * @example
+ * try { await loadWorkspace(region) } catch (error) { handleError(error) } // prints "r/fire-sites.csv:4: …", exit code 1
+ */
+export function handleError(error: unknown, output: ErrorOutput = defaultOutput()): number {
+  const code = report(error, output);
+  process.exitCode = code;
+  return code;
+}
+
+function report(error: unknown, output: ErrorOutput): number {
+  if (error instanceof InputError) {
+    for (const problem of error.problems) output.writeErr(`${formatProblem(problem)}\n`);
+    return EXIT_CODES.input;
+  }
+  if (error instanceof UsageError) {
+    output.writeErr(`firephase: ${error.message}\n`);
+    return EXIT_CODES.usage;
+  }
+  if (error instanceof CommanderError) {
+    return error.exitCode === 0 ? EXIT_CODES.ok : EXIT_CODES.usage;
+  }
+  const message = error instanceof Error ? error.message : String(error);
+  output.writeErr(`firephase: internal error: ${message}\n`);
+  if (output.debug && error instanceof Error && error.stack !== undefined) output.writeErr(`${error.stack}\n`);
+  return EXIT_CODES.input;
+}
