@@ -41,7 +41,8 @@ export function benjaminiHochberg(pValues: readonly number[]): number[] {
   for (let rank = testCount; rank >= 1; rank -= 1) {
     const entry = definedIndices[rank - 1];
     if (entry === undefined) continue;
-    runningMinimum = Math.min(runningMinimum, (testCount * entry.pValue) / rank);
+    // p·(m/rank), not (m·p)/rank: multiplying p by a factor ≥ 1 can never round below p.
+    runningMinimum = Math.min(runningMinimum, entry.pValue * (testCount / rank));
     adjusted[entry.index] = runningMinimum;
   }
   return adjusted;
