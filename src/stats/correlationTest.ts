@@ -16,7 +16,7 @@ import { StatsInputError } from "./StatsInputError.js";
  * @example
  * ```ts
  * // r = 0.5 from 27 independent pairs: t = 0.5·5/√0.75 = 2.8868 with 25 df
- * correlationTest(0.5, 27); // => { t: 2.886751, df: 25, pValue: 0.007916 }
+ * correlationTest(0.5, 27); // => { t: 2.886751, df: 25, pValue: 0.007913 }
  * ```
  * @see Fisher R.A. (1915) "Frequency distribution of the values of the correlation coefficient in samples from
  *   an indefinitely large population", Biometrika 10(4):507–521, doi:10.2307/2331838.
