@@ -1,0 +1,716 @@
+/**
+ * The briefing's view model: every word and number the templates print, computed and formatted
+ * here from the Calibration, the Outlook (with its hindcast Skill) and the Workspace. Templates
+ * only place these strings; they compute nothing.
+ */
+import type { Calibration, IndexCalibration, ProbabilityEstimate } from "../calibrate/types.js";
+import type { Outlook } from "../outlook/types.js";
+import { describeChance, formatPercent, formatPercentRange, headline as headlineSentence } from "../outlook/describeChance.js";
+import { compositeFireRecord } from "../record/composite.js";
+import type { Workspace } from "../workspace/types.js";
+import { activityTimeline } from "./charts/activityTimeline.js";
+import { categoryOddsBar } from "./charts/categoryOddsBar.js";
+import { oddsByPhaseChart } from "./charts/oddsByPhaseChart.js";
+import { phaseSpaceScatter } from "./charts/phaseSpaceScatter.js";
+import { reliabilityDiagram } from "./charts/reliabilityDiagram.js";
+import { rocCurveChart } from "./charts/rocCurveChart.js";
+import { seaChart } from "./charts/seaChart.js";
+import { stabilityChart } from "./charts/stabilityChart.js";
+import { formatCount, formatDecimal, formatLongDate, formatPValue } from "./formatValues.js";
+import { markdownBlocks, type MarkdownBlock } from "./markdownBlocks.js";
+import { METHOD_CITATIONS, type MethodCitation } from "./methodCitations.js";
+import { trustSvg, type TrustedMarkup } from "./trustedMarkup.js";
+
+/** The words printed wherever a statistic is null. */
+export const NOT_ENOUGH_DATA = "not enough data";
+
+/** Everything {@link buildBriefingView} reads. */
+export interface BriefingInputs {
+  readonly workspace: Workspace;
+  readonly calibration: Calibration;
+  readonly outlook: Outlook;
+  /** Version of the tool that made the briefing (package.json "version"). */
+  readonly toolVersion: string;
+  /** Full markdown text of SAFETY.md, printed in the appendix. */
+  readonly safetyMarkdown: string;
+  /** Paper size, printed in the settings table. */
+  readonly paper: "a4" | "letter";
+}
+
+/** A statistic that is either shown or replaced by "not enough data" with its reason. */
+export interface Shown<T> {
+  readonly available: boolean;
+  readonly value: T | null;
+  /** "not enough data (reason)" when not available; null otherwise. */
+  readonly missingText: string | null;
+}
+
+/** A probability as printed: percent, interval, words. */
+export interface ProbabilityText {
+  readonly available: boolean;
+  readonly percent: string;
+  readonly interval: string;
+  /** The interval alone, e.g. "13–30%" (for table cells); empty when unavailable. */
+  readonly range: string;
+  readonly words: string;
+  /** "not enough data (reason)" when the estimate is null; null otherwise. */
+  readonly missingText: string | null;
+}
+
+/** One row of a label–value table. */
+export interface LabelValue {
+  readonly label: string;
+  readonly value: string;
+}
+
+/** The view model of the whole briefing (see templates/briefing.hbs). */
+export interface BriefingView {
+  readonly documentTitle: string;
+  readonly header: {
+    readonly region: string;
+    readonly description: string | null;
+    readonly issuedText: string;
+    readonly issuedIso: string;
+    readonly seasonText: string;
+    readonly dataThroughText: string;
+    readonly calibrationText: string;
+  };
+  readonly headline: {
+    readonly available: boolean;
+    readonly sentence: string;
+    readonly chance: ProbabilityText;
+    readonly base: ProbabilityText;
+    readonly comparison: string;
+    readonly basis: string;
+    readonly definition: string;
+  };
+  readonly categories: {
+    readonly rows: readonly { readonly label: string; readonly chance: ProbabilityText }[];
+    readonly note: string;
+    readonly chart: TrustedMarkup;
+  };
+  readonly currentPhases: {
+    readonly rows: readonly {
+      readonly index: string;
+      readonly value: string;
+      readonly phase: string;
+      readonly zText: string;
+      readonly nearBoundary: boolean;
+      readonly note: string;
+    }[];
+    readonly missingText: string | null;
+  };
+  readonly skill: {
+    readonly hasSkill: boolean;
+    readonly title: string;
+    readonly verdict: string;
+    readonly summary: string;
+  };
+  readonly cautions: readonly string[];
+  readonly outlookNotes: readonly string[];
+  readonly indices: readonly IndexView[];
+  readonly analogs: {
+    readonly available: boolean;
+    readonly missingText: string | null;
+    readonly indexNames: readonly string[];
+    readonly rows: readonly {
+      readonly year: string;
+      readonly distance: string;
+      readonly fireYear: string;
+      readonly isFireYear: boolean;
+      readonly category: string;
+      readonly activity: string;
+      readonly values: readonly string[];
+    }[];
+    readonly shareText: string;
+    readonly scatter: {
+      readonly available: boolean;
+      readonly missingText: string | null;
+      readonly title: string;
+      readonly caption: string;
+      readonly chart: TrustedMarkup | null;
+    };
+  };
+  readonly timeline: { readonly chart: TrustedMarkup; readonly caption: string };
+  readonly hindcast: {
+    readonly available: boolean;
+    readonly missingText: string | null;
+    readonly verdict: string;
+    readonly hasSkill: boolean;
+    readonly rule: string;
+    readonly scores: readonly { readonly score: string; readonly value: string; readonly meaning: string }[];
+    readonly reliabilityChart: TrustedMarkup;
+    readonly rocChart: TrustedMarkup;
+    readonly caption: string;
+  };
+  readonly methods: readonly MethodCitation[];
+  readonly settings: readonly LabelValue[];
+  readonly files: readonly { readonly role: string; readonly path: string; readonly sha256: string; readonly bytes: string }[];
+  readonly dataNotes: readonly string[];
+  readonly toolVersion: string;
+  readonly footerText: string;
+  readonly safety: readonly MarkdownBlock[];
+}
+
+/** The per-index sections: odds by phase, tests, SEA, block correlation and stability. */
+export interface IndexView {
+  readonly name: string;
+  readonly ruleText: string;
+  readonly currentText: string | null;
+  readonly phases: readonly {
+    readonly label: string;
+    readonly years: string;
+    readonly fireYears: string;
+    readonly chance: ProbabilityText;
+    readonly ratio: string;
+    readonly categories: string;
+    readonly fisher: string;
+    readonly residual: string;
+    readonly oddsRatio: string;
+    readonly smallSample: boolean;
+    readonly isCurrent: boolean;
+  }[];
+  readonly testText: string;
+  readonly oddsChart: TrustedMarkup;
+  readonly sea: {
+    readonly available: boolean;
+    readonly missingText: string | null;
+    readonly chart: TrustedMarkup;
+    readonly caption: string;
+    readonly outsideText: string;
+  };
+  readonly aggregated: {
+    readonly available: boolean;
+    readonly missingText: string | null;
+    readonly caption: string;
+    readonly rows: readonly { readonly lag: string; readonly r: string; readonly pValue: string; readonly effectiveN: string }[];
+  };
+  readonly stability: { readonly chart: TrustedMarkup; readonly caption: string };
+}
+
+function missing(reason: string | undefined): string {
+  return reason === undefined || reason === "" ? NOT_ENOUGH_DATA : `${NOT_ENOUGH_DATA} (${reason})`;
+}
+
+function probabilityText(estimate: ProbabilityEstimate): ProbabilityText {
+  if (estimate.estimate === null) {
+    return { available: false, percent: NOT_ENOUGH_DATA, interval: "", range: "", words: NOT_ENOUGH_DATA, missingText: missing(estimate.reason) };
+  }
+  const range = estimate.lower !== null && estimate.upper !== null ? formatPercentRange(estimate.lower, estimate.upper) : "";
+  const interval = range === "" ? "interval: not enough data" : `95% interval ${range}`;
+  return { available: true, percent: formatPercent(estimate.estimate), interval, range, words: describeChance(estimate.estimate), missingText: null };
+}
+
+function signed(value: number, digits: number): string {
+  const text = formatDecimal(value, digits);
+  return value > 0 && !/^0\.?0*$/.test(text) ? `+${text}` : text;
+}
+
+function plural(count: number, one: string, many: string): string {
+  return `${formatCount(count)} ${count === 1 ? one : many}`;
+}
+
+/** Phase rule in words: "cold: at most −0.50; neutral: between −0.50 and 0.50; warm: at least 0.50". */
+export function describePhaseRule(index: IndexCalibration, period: { first: number; last: number }): string {
+  const { labels, cuts, rule } = index.definition;
+  const parts = labels.map((label, i) => {
+    const lower = cuts[i - 1];
+    const upper = cuts[i];
+    if (i === 0 && upper !== undefined) return `${label}: at most ${formatDecimal(upper, 2)}`;
+    if (i === labels.length - 1 && lower !== undefined) return `${label}: at least ${formatDecimal(lower, 2)}`;
+    if (lower !== undefined && upper !== undefined) return `${label}: between ${formatDecimal(lower, 2)} and ${formatDecimal(upper, 2)}`;
+    return label;
+  });
+  const origin = rule === "terciles" ? `terciles of ${period.first}–${period.last}` : "fixed cuts";
+  return `${parts.join("; ")} (${origin})`;
+}
+
+function chanceComparison(chance: number | null, base: number | null): string {
+  if (chance === null || base === null || base <= 0) return "";
+  const ratio = chance / base;
+  if (ratio >= 1.25) return `That is about ${formatDecimal(ratio, 1)} times the chance in an average year.`;
+  if (ratio <= 0.8) return `That is lower than in an average year (about ${formatDecimal(ratio, 1)} times the average chance).`;
+  return "That is close to the chance in an average year.";
+}
+
+function lastYearWithValue(series: { years: readonly number[]; values: readonly (number | null)[] }): number | null {
+  for (let i = series.years.length - 1; i >= 0; i--) {
+    if (series.values[i] !== null && series.values[i] !== undefined) return series.years[i] ?? null;
+  }
+  return null;
+}
+
+function strongestPair(calibration: Calibration, outlook: Outlook): [IndexCalibration, IndexCalibration] | null {
+  const byName = new Map(calibration.indices.map((index) => [index.name, index]));
+  const chosen: IndexCalibration[] = [];
+  for (const name of outlook.fireYear.basisIndices) {
+    const index = byName.get(name);
+    if (index !== undefined && !chosen.includes(index)) chosen.push(index);
+  }
+  const ranked = [...calibration.indices].sort((a, b) => (a.contingency.pValue ?? 2) - (b.contingency.pValue ?? 2) || (a.name < b.name ? -1 : 1));
+  for (const index of ranked) if (chosen.length < 2 && !chosen.includes(index)) chosen.push(index);
+  const [first, second] = chosen;
+  return first !== undefined && second !== undefined ? [first, second] : null;
+}
+
+function buildIndexView(index: IndexCalibration, calibration: Calibration, outlook: Outlook): IndexView {
+  const period = calibration.period;
+  const current = outlook.current.find((phase) => phase.index === index.name);
+  const tests = new Map(index.contingency.perPhase.map((test) => [test.label, test]));
+  const phases = index.phases.map((phase) => {
+    const test = tests.get(phase.label);
+    const oddsRatio = test?.oddsRatio;
+    return {
+      label: phase.label,
+      years: formatCount(phase.years),
+      fireYears: formatCount(phase.fireYears),
+      chance: probabilityText(phase.probability),
+      ratio: phase.ratioToBase === null ? NOT_ENOUGH_DATA : `${formatDecimal(phase.ratioToBase, 1)}×`,
+      categories: `${phase.categories.below} / ${phase.categories.near} / ${phase.categories.above}`,
+      fisher: test?.fisherPValue === null || test?.fisherPValue === undefined ? NOT_ENOUGH_DATA : formatPValue(test.fisherPValue),
+      residual: test?.residual === null || test?.residual === undefined ? NOT_ENOUGH_DATA : signed(test.residual, 2),
+      oddsRatio:
+        oddsRatio === undefined || oddsRatio.estimate === null
+          ? NOT_ENOUGH_DATA
+          : `${formatDecimal(oddsRatio.estimate, 2)}` +
+            (oddsRatio.lower !== null && oddsRatio.upper !== null ? ` (${formatDecimal(oddsRatio.lower, 2)}–${formatDecimal(oddsRatio.upper, 2)})` : "") +
+            (oddsRatio.haldaneCorrected ? "*" : ""),
+      smallSample: phase.smallSample,
+      isCurrent: current !== undefined && current.label === phase.label,
+    };
+  });
+  const contingency = index.contingency;
+  const testText =
+    contingency.chiSquare === null || contingency.pValue === null
+      ? `Chi-square test: ${missing(contingency.reason)}.`
+      : `Chi-square test of fire years by phase: X² = ${formatDecimal(contingency.chiSquare, 2)}, df = ${contingency.df}, ` +
+        `p = ${formatPValue(contingency.pValue)}` +
+        (contingency.qValue === null ? "" : `, false discovery rate q = ${formatPValue(contingency.qValue)} across all indices`) +
+        "." +
+        (contingency.smallExpectedShare > 0
+          ? ` ${Math.round(contingency.smallExpectedShare * 100)}% of expected counts are below 5, so read the chi-square p-value with care (Fisher exact p-values per phase are exact).`
+          : "");
+
+  const sea = index.sea;
+  const seaAvailable = sea.mean.some((value) => value !== null);
+  const outside: string[] = [];
+  sea.lags.forEach((lag, i) => {
+    const mean = sea.mean[i];
+    const ci95 = sea.ci95[i];
+    if (mean === null || mean === undefined || ci95 === null || ci95 === undefined) return;
+    if (mean < ci95[0] || mean > ci95[1]) {
+      const p = sea.pValue[i];
+      const q = sea.qValue[i];
+      outside.push(
+        `lag ${signed(lag, 0)} (${signed(mean, 2)}` +
+          (p === null || p === undefined ? "" : `, p = ${formatPValue(p)}`) +
+          (q === null || q === undefined ? "" : `, q = ${formatPValue(q)}`) +
+          ")",
+      );
+    }
+  });
+  const seaChartSvg = seaChart({ indexName: index.name, lags: sea.lags, mean: sea.mean, ci95: sea.ci95, ci99: sea.ci99 });
+
+  const aggregated = index.aggregated;
+  const aggregatedRows = aggregated.lags.map((lag, i) => {
+    const r = aggregated.r[i];
+    const p = aggregated.pValue[i];
+    const n = aggregated.effectiveN[i];
+    return {
+      lag: signed(lag, 0),
+      r: r === null || r === undefined ? NOT_ENOUGH_DATA : signed(r, 2),
+      pValue: p === null || p === undefined ? NOT_ENOUGH_DATA : formatPValue(p),
+      effectiveN: n === null || n === undefined ? NOT_ENOUGH_DATA : formatDecimal(n, 1),
+    };
+  });
+  const aggregatedAvailable = aggregated.r.some((value) => value !== null);
+
+  const stability = index.stability;
+  const base = calibration.baseRate.estimate ?? 0;
+  const stabilitySvg = stabilityChart({
+    windows: stability.windows.map((window) => ({
+      first: window.first,
+      last: window.last,
+      phases: window.phases.map((phase) => ({
+        label: phase.label,
+        estimate: phase.probability.estimate,
+        lower: phase.probability.lower,
+        upper: phase.probability.upper,
+      })),
+    })),
+    labels: index.definition.labels,
+    baseRate: base,
+  });
+
+  return {
+    name: index.name,
+    ruleText: describePhaseRule(index, period),
+    currentText:
+      current === undefined
+        ? null
+        : `This season: ${current.label} (${formatDecimal(current.value, 2)}${current.nearBoundary ? ", near a phase boundary" : ""}).`,
+    phases,
+    testText,
+    oddsChart: trustSvg(
+      oddsByPhaseChart({
+        indexName: index.name,
+        phases: index.phases.map((phase) => ({
+          label: phase.label,
+          estimate: phase.probability.estimate,
+          lower: phase.probability.lower,
+          upper: phase.probability.upper,
+          years: phase.years,
+          smallSample: phase.smallSample,
+        })),
+        baseRate: { estimate: calibration.baseRate.estimate, lower: calibration.baseRate.lower, upper: calibration.baseRate.upper },
+      }),
+    ),
+    sea: {
+      available: seaAvailable,
+      missingText: seaAvailable ? null : missing(sea.reason),
+      chart: trustSvg(seaChartSvg),
+      caption:
+        `Mean ${index.name} departure in the years around ${plural(sea.eventYears.length, "fire year", "fire years")} (lag 0 = fire year). ` +
+        `Limits: ${formatCount(sea.draws)} random draws of the same number of years from ${formatCount(sea.poolYears)} years whose whole window is covered ` +
+        `(seed ${sea.seed}; ${sea.sampling}; baseline: ${sea.baseline}; ${sea.percentileRule}).`,
+      outsideText:
+        !seaAvailable
+          ? ""
+          : outside.length === 0
+            ? "No lag lies outside its 95% limits."
+            : `Outside the 95% limits: ${outside.join("; ")}.`,
+    },
+    aggregated: {
+      available: aggregatedAvailable,
+      missingText: aggregatedAvailable ? null : missing(aggregated.reason),
+      caption:
+        `Fire activity and ${index.name} averaged in ${plural(aggregated.blocks, "block", "blocks")} of ${aggregated.blockYears} years; ` +
+        "Pearson r at block lags (negative: the index leads), p-values from the effective sample size.",
+      rows: aggregatedRows,
+    },
+    stability: {
+      chart: trustSvg(stabilitySvg),
+      caption:
+        `Chance of a fire year by ${index.name} phase in moving windows of ${stability.window} years, step ${stability.step} years ` +
+        `(${plural(stability.windows.length, "window", "windows")}); a link that holds through time stays on the same side of the base rate.`,
+    },
+  };
+}
+
+/**
+ * Build the briefing's view model: every word and number the templates print.
+ *
+ * Computes nothing statistical: it formats the Calibration, the Outlook and its hindcast Skill,
+ * composites the fire record only to draw the sample depth, calls the chart functions, and reads
+ * the markdown of SAFETY.md into blocks. A null statistic becomes "not enough data" with its reason.
+ *
+ * @param inputs - workspace, calibration, outlook, tool version, SAFETY.md text, paper size.
+ * @returns the view model; with no usable outlook estimate the headline says "not enough data".
+ * @throws RangeError when the issue date is not a calendar date or a chart returns unsafe SVG.
+ * @example
+ * const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: "0.1.0", safetyMarkdown, paper: "a4" });
+ * view.header.issuedText; // => "Issued 10 March 2027"
+ * @see Brown L.D., Cai T.T., DasGupta A. (2001) "Interval estimation for a binomial proportion", Statistical Science 16(2):101–133 (the intervals shown).
+ */
+export function buildBriefingView(inputs: BriefingInputs): BriefingView {
+  const { workspace, calibration, outlook } = inputs;
+  const settings = workspace.settings;
+  const methods = settings.methods;
+  const period = calibration.period;
+  const issuedLong = formatLongDate(outlook.issued);
+  const record = compositeFireRecord(workspace.fireRecord, settings.fireYears.minSitesRecording);
+  const lastFireYear = record.years[record.years.length - 1]?.year ?? null;
+  const indexLast = workspace.indices
+    .map((series) => ({ name: series.name, last: lastYearWithValue(series) }))
+    .filter((entry): entry is { name: string; last: number } => entry.last !== null);
+  const indexLastYears = [...new Set(indexLast.map((entry) => entry.last))];
+  const indexThrough =
+    indexLast.length === 0
+      ? "no index values"
+      : indexLastYears.length === 1
+        ? `climate indices through ${indexLastYears[0]}`
+        : `climate indices through ${indexLast.map((entry) => `${entry.last} (${entry.name})`).join(", ")}`;
+
+  const measureWords = calibration.fireYears.measure === "fraction" ? "share of recording sites burned" : "number of sites burned";
+  const topPercent = Math.round(calibration.fireYears.top * 100);
+  const chance = probabilityText(outlook.fireYear);
+  const base = probabilityText(outlook.baseRate);
+  const fireYearCount = calibration.fireYears.years.length;
+
+  const categoryKeys = [
+    ["below", "Below normal"],
+    ["near", "Near normal"],
+    ["above", "Above normal"],
+  ] as const;
+  const shares = calibration.categories.realisedShares;
+
+  const skill = outlook.hindcast;
+  const hindcastAvailable = skill.brierScore !== null;
+
+  const analogNames = calibration.indices.map((index) => index.name);
+  const analogFireCount = outlook.analogs.filter((analog) => analog.fireYear).length;
+  const fireYearSet = new Set(calibration.fireYears.years);
+  const pair = strongestPair(calibration, outlook);
+  const seriesByName = new Map(workspace.indices.map((series) => [series.name, series]));
+  const valueMap = (name: string): Map<number, number> => {
+    const series = seriesByName.get(name);
+    const map = new Map<number, number>();
+    series?.years.forEach((year, i) => {
+      const value = series.values[i];
+      if (value !== null && value !== undefined) map.set(year, value);
+    });
+    return map;
+  };
+  let scatter: BriefingView["analogs"]["scatter"];
+  if (pair === null) {
+    scatter = { available: false, missingText: missing("the phase space needs two indices"), title: "Phase space", caption: "", chart: null };
+  } else {
+    const [xIndex, yIndex] = pair;
+    const xValues = valueMap(xIndex.name);
+    const yValues = valueMap(yIndex.name);
+    const points = calibration.years.flatMap((year) => {
+      const x = xValues.get(year);
+      const y = yValues.get(year);
+      return x === undefined || y === undefined ? [] : [{ x, y, fireYear: fireYearSet.has(year), year }];
+    });
+    const currentX = outlook.current.find((phase) => phase.index === xIndex.name);
+    const currentY = outlook.current.find((phase) => phase.index === yIndex.name);
+    scatter = {
+      available: points.length > 0,
+      missingText: points.length > 0 ? null : missing("no calibration year has both values"),
+      title: `Phase space: ${xIndex.name} and ${yIndex.name}`,
+      caption:
+        `Each point is a calibration year (${period.first}–${period.last}) placed by its ${xIndex.name} and ${yIndex.name} values; ` +
+        `fire years are marked, dashed lines are the phase boundaries` +
+        (currentX !== undefined && currentY !== undefined ? ", and the large marker is this season." : "; this season lacks one of the two values."),
+      chart: trustSvg(
+        phaseSpaceScatter({
+          xName: xIndex.name,
+          yName: yIndex.name,
+          points,
+          current: currentX !== undefined && currentY !== undefined ? { x: currentX.value, y: currentY.value } : null,
+          xCuts: xIndex.definition.cuts,
+          yCuts: yIndex.definition.cuts,
+        }),
+      ),
+    };
+  }
+
+  const timelineYears = record.years.map((row) => ({
+    year: row.year,
+    activity: calibration.fireYears.measure === "fraction" ? row.fraction : row.sitesBurned,
+    sitesRecording: row.sitesRecording,
+    fireYear: fireYearSet.has(row.year),
+  }));
+
+  const warningsSeen = new Set<string>();
+  const dataNotes: string[] = [];
+  for (const warning of [...workspace.warnings, ...calibration.warnings, ...outlook.warnings]) {
+    if (warningsSeen.has(warning.message)) continue;
+    warningsSeen.add(warning.message);
+    dataNotes.push(warning.message);
+  }
+
+  const firstSea = calibration.indices[0]?.sea;
+  const settingsRows: LabelValue[] = [
+    { label: "Calibration period", value: `${period.first}–${period.last} (${formatCount(period.years)} years used)` },
+    {
+      label: "Fire years",
+      value:
+        `top ${topPercent}% of calibration years by ${measureWords}; at least ${settings.fireYears.minSitesRecording} recording sites; ` +
+        `threshold ${calibration.fireYears.threshold === null ? NOT_ENOUGH_DATA : formatDecimal(calibration.fireYears.threshold, calibration.fireYears.measure === "fraction" ? 3 : 0)}; ` +
+        `realised ${fireYearCount} of ${calibration.fireYears.calibrationYears} years (${Math.round(calibration.fireYears.realisedShare * 1000) / 10}%)`,
+    },
+    {
+      label: "Activity categories",
+      value:
+        `terciles of calibration-period activity (${calibration.categories.quantileRule}); ${calibration.categories.tieRule}; ` +
+        `realised shares below ${formatPercent(shares.below)}, near ${formatPercent(shares.near)}, above ${formatPercent(shares.above)}`,
+    },
+    { label: "Interval for a proportion", value: calibration.interval === "wilson" ? "Wilson score, 95%, no continuity correction" : "Jeffreys, 95% equal-tailed" },
+    { label: "Small-sample flag", value: `a phase with fewer than ${methods.smallSampleYears} calibration years` },
+    { label: "Near-boundary margin", value: `${formatDecimal(methods.nearBoundaryMargin, 2)} index units` },
+    { label: "Superposed epoch analysis", value: `lags ${signed(methods.seaFirstLag, 0)} to ${signed(methods.seaLastLag, 0)} years; ${formatCount(methods.seaDraws)} random draws` },
+    ...(firstSea === undefined
+      ? []
+      : [{ label: "SEA draws and limits", value: `${firstSea.sampling}; baseline: ${firstSea.baseline}; ${firstSea.percentileRule}` }]),
+    { label: "Aggregated lag correlation", value: `blocks of ${methods.blockYears} years, block lags −${methods.blockMaxLag} to +${methods.blockMaxLag}` },
+    { label: "Stability windows", value: `${methods.stabilityWindow} years, step ${methods.stabilityStep} years` },
+    { label: "Joint phases", value: `used when the joint cell has at least ${methods.jointMinYears} calibration years` },
+    { label: "Analog years", value: `${methods.analogs} nearest calibration years in standardized index space` },
+    { label: "Hindcast", value: `each year forecast without itself and ${methods.hindcastExclusion} years either side` },
+    { label: "Site independence distance", value: `${formatCount(methods.independenceKm)} km` },
+    { label: "Random seed", value: String(calibration.seed) },
+    { label: "Paper", value: inputs.paper === "a4" ? "A4" : "US Letter" },
+    { label: "Tool version", value: `firephase ${inputs.toolVersion}` },
+  ];
+
+  return {
+    documentTitle: `Fire-season outlook ${outlook.season}: ${outlook.region}`,
+    header: {
+      region: outlook.region,
+      description: settings.description,
+      issuedText: `Issued ${issuedLong}`,
+      issuedIso: outlook.issued,
+      seasonText: `for the ${outlook.season} fire season`,
+      dataThroughText: `Data through: fire record ${lastFireYear ?? "none"}; ${indexThrough}.`,
+      calibrationText: `Calibrated on ${period.first}–${period.last} (${formatCount(period.years)} years).`,
+    },
+    headline: {
+      available: chance.available,
+      sentence: chance.available ? headlineSentence(outlook.fireYear.estimate, outlook.baseRate.estimate) : `Chance of a high-fire year: ${chance.missingText ?? NOT_ENOUGH_DATA}.`,
+      chance,
+      base,
+      comparison: chanceComparison(outlook.fireYear.estimate, outlook.baseRate.estimate),
+      basis:
+        `Based on ${outlook.fireYear.basis}: ${plural(outlook.fireYear.fireYears, "high-fire year", "high-fire years")} ` +
+        `in ${plural(outlook.fireYear.years, "past year", "past years")} with the same phase${outlook.fireYear.basisIndices.length > 1 ? "s" : ""}.`,
+      definition:
+        `A high-fire year is one of the top ${topPercent}% of years ${period.first}–${period.last} by the ${measureWords} ` +
+        `(${fireYearCount} of ${calibration.fireYears.calibrationYears} years).`,
+    },
+    categories: {
+      rows: categoryKeys.map(([key, label]) => ({ label, chance: probabilityText(outlook.categories[key]) })),
+      note:
+        `Categories are terciles of ${period.first}–${period.last} fire activity: in an average year each has about a 1 in 3 chance ` +
+        `(realised ${formatPercent(shares.below)} / ${formatPercent(shares.near)} / ${formatPercent(shares.above)}).`,
+      chart: trustSvg(
+        categoryOddsBar({
+          below: outlook.categories.below,
+          near: outlook.categories.near,
+          above: outlook.categories.above,
+        }),
+      ),
+    },
+    currentPhases: {
+      rows: outlook.current.map((phase) => ({
+        index: phase.index,
+        value: formatDecimal(phase.value, 2),
+        phase: phase.label,
+        zText: Number.isFinite(phase.z) ? `${signed(phase.z, 1)} SD from the ${period.first}–${period.last} mean` : NOT_ENOUGH_DATA,
+        nearBoundary: phase.nearBoundary,
+        note: phase.nearBoundary
+          ? `near a phase boundary (within ${formatDecimal(methods.nearBoundaryMargin, 2)}): a small change would change the phase`
+          : "",
+      })),
+      missingText: outlook.missing.length === 0 ? null : `No value for this season, left out: ${outlook.missing.join(", ")}.`,
+    },
+    skill: {
+      hasSkill: skill.hasSkill,
+      title: skill.hasSkill ? "Hindcast: the method showed some skill" : "Hindcast: the method showed no skill",
+      verdict: skill.verdict,
+      summary: hindcastAvailable
+        ? `Tested on ${plural(skill.years, "past year", "past years")}, each forecast without itself and ${skill.exclusion} years either side: ` +
+          `Brier skill score ${skill.brierSkillScore === null ? NOT_ENOUGH_DATA : signed(skill.brierSkillScore, 2)}, ` +
+          `ROC area ${skill.rocArea === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rocArea, 2)}.`
+        : `Hindcast scores: ${missing(skill.reason)}.`,
+    },
+    cautions: [
+      "This is a statistical outlook built from past fire and climate records. It does not forecast weather, fire danger or any single fire.",
+      "Official agency seasonal outlooks and daily fire-danger forecasts come first: use them for operational decisions, and where they differ from this briefing, follow them.",
+      `The odds describe ${period.first}–${period.last}; land use, fire suppression and climate have changed since, so the past may not repeat.`,
+      "Even at higher odds most seasons are not high-fire years, and a quiet outlook does not mean a quiet season.",
+    ],
+    outlookNotes: outlook.warnings.map((warning) => warning.message),
+    indices: calibration.indices.map((index) => buildIndexView(index, calibration, outlook)),
+    analogs: {
+      available: outlook.analogs.length > 0,
+      missingText: outlook.analogs.length > 0 ? null : missing("no calibration year has all current index values"),
+      indexNames: analogNames,
+      rows: outlook.analogs.map((analog) => ({
+        year: String(analog.year),
+        distance: formatDecimal(analog.distance, 2),
+        fireYear: analog.fireYear ? "yes" : "no",
+        isFireYear: analog.fireYear,
+        category: analog.category === "below" ? "Below normal" : analog.category === "near" ? "Near normal" : "Above normal",
+        activity:
+          calibration.fireYears.measure === "fraction" ? `${Math.round(analog.activity * 100)}% of sites` : plural(analog.activity, "site", "sites"),
+        values: analogNames.map((name) => {
+          const value = analog.values[name];
+          return value === undefined ? "–" : formatDecimal(value, 2);
+        }),
+      })),
+      shareText:
+        outlook.analogs.length === 0
+          ? ""
+          : `${analogFireCount} of ${outlook.analogs.length} analog years were high-fire years` +
+            (outlook.analogFireShare.estimate === null
+              ? "."
+              : ` (${formatPercent(outlook.analogFireShare.estimate)}` +
+                (outlook.analogFireShare.lower !== null && outlook.analogFireShare.upper !== null
+                  ? `, 95% interval ${formatPercentRange(outlook.analogFireShare.lower, outlook.analogFireShare.upper)}`
+                  : "") +
+                `; all years ${formatPercent(calibration.baseRate.estimate)}).`),
+      scatter,
+    },
+    timeline: {
+      chart: trustSvg(
+        activityTimeline({
+          years: timelineYears,
+          threshold: calibration.fireYears.threshold,
+          measureLabel: calibration.fireYears.measure === "fraction" ? "Share of recording sites burned" : "Sites burned",
+          calibration: { first: period.first, last: period.last },
+        }),
+      ),
+      caption:
+        `Fire activity per year (${measureWords}) with the fire-year threshold, and the sample depth (sites recording) on the right axis. ` +
+        `The shaded span is the calibration period; years with fewer than ${settings.fireYears.minSitesRecording} recording sites are not used.`,
+    },
+    hindcast: {
+      available: hindcastAvailable,
+      missingText: hindcastAvailable ? null : missing(skill.reason),
+      verdict: skill.verdict,
+      hasSkill: skill.hasSkill,
+      rule: skill.rule,
+      scores: [
+        {
+          score: "Brier score",
+          value:
+            skill.brierScore === null
+              ? NOT_ENOUGH_DATA
+              : `${formatDecimal(skill.brierScore, 3)} (average-year odds: ${skill.brierScoreClimatology === null ? NOT_ENOUGH_DATA : formatDecimal(skill.brierScoreClimatology, 3)})`,
+          meaning: "mean squared error of the fire-year chance; lower is better",
+        },
+        {
+          score: "Brier skill score",
+          value: skill.brierSkillScore === null ? NOT_ENOUGH_DATA : signed(skill.brierSkillScore, 2),
+          meaning: "above 0: better than always forecasting the average-year chance",
+        },
+        {
+          score: "Ranked probability score",
+          value:
+            skill.rps === null
+              ? NOT_ENOUGH_DATA
+              : `${formatDecimal(skill.rps, 3)} (average-year odds: ${skill.rpsClimatology === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rpsClimatology, 3)}; ${skill.rpsForm})`,
+          meaning: "error of the below / near / above odds; lower is better",
+        },
+        {
+          score: "Ranked probability skill score",
+          value: skill.rpss === null ? NOT_ENOUGH_DATA : signed(skill.rpss, 2),
+          meaning: "above 0: better than one in three for each category",
+        },
+        {
+          score: "ROC area",
+          value:
+            skill.rocArea === null
+              ? NOT_ENOUGH_DATA
+              : `${formatDecimal(skill.rocArea, 2)}` + (skill.rocStandardError === null ? "" : ` (standard error ${formatDecimal(skill.rocStandardError, 3)})`),
+          meaning: "0.5: no better than chance at telling fire years from others; 1: perfect",
+        },
+        { score: "Years tested", value: formatCount(skill.years), meaning: `each left out with ${skill.exclusion} years either side` },
+      ],
+      reliabilityChart: trustSvg(reliabilityDiagram({ bins: skill.reliability, climatology: calibration.baseRate.estimate ?? 0 })),
+      rocChart: trustSvg(rocCurveChart({ points: skill.rocCurve, area: skill.rocArea })),
+      caption:
+        "Reliability: when the method said a given chance, how often a fire year followed (points near the diagonal are reliable). " +
+        "ROC: hit rate against false-alarm rate over all probability thresholds.",
+    },
+    methods: METHOD_CITATIONS,
+    settings: settingsRows,
+    files: workspace.files.map((file) => ({ role: file.role, path: file.path, sha256: file.sha256, bytes: formatCount(file.bytes) })),
+    dataNotes,
+    toolVersion: inputs.toolVersion,
+    footerText: `${outlook.region} · fire-season outlook ${outlook.season} · Issued ${issuedLong}`,
+    safety: markdownBlocks(inputs.safetyMarkdown),
+  };
+}
