@@ -12,10 +12,15 @@ describe("rankedProbabilityScore(probabilities, observedCategory, options?)", ()
   // published numeric RPS example was found. Definition: Epstein E.S. (1969) J. Appl. Meteor. 8:985–987 and
   // Murphy A.H. (1971) J. Appl. Meteor. 10:155–156 (the normalisation convention of the original is M).
   it.each([
-    ["climatology, lower observed", CLIMATOLOGY, 0, 5 / 9, 0.2778],
-    ["climatology, middle observed", CLIMATOLOGY, 1, 2 / 9, 0.1111],
-    ["climatology, upper observed", CLIMATOLOGY, 2, 5 / 9, 0.2778],
-  ])("%s: RPS = %#", (_, probabilities, category, unnormalized, normalized) => {
+    { label: "lower", category: 0, unnormalized: 5 / 9, normalized: 0.2778, shown: "5/9" },
+    { label: "middle", category: 1, unnormalized: 2 / 9, normalized: 0.1111, shown: "2/9" },
+    { label: "upper", category: 2, unnormalized: 5 / 9, normalized: 0.2778, shown: "5/9" },
+  ])("rankedProbabilityScore((⅓, ⅓, ⅓), $category) = $shown, normalized $normalized ($label observed)", ({
+    category,
+    unnormalized,
+    normalized,
+  }) => {
+    const probabilities = CLIMATOLOGY;
     expect(rankedProbabilityScore(probabilities, category)).toBeCloseTo(unnormalized, 14);
     expect(rankedProbabilityScore(probabilities, category, { normalized: true })).toBeCloseTo(normalized, 4);
     expect(rankedProbabilityScore(probabilities, category, { normalized: false })).toBeCloseTo(unnormalized, 14);
