@@ -8,7 +8,7 @@ import { StatsInputError } from "./StatsInputError.js";
  * A = U / (n₁·n₀), where U = Σ over (event, non-event) pairs of [1 if s_event > s_non-event, ½ if equal],
  * computed in O(n log n) from mid-ranks: U = R₁ − n₁(n₁ + 1)/2 with R₁ the rank sum of the n₁ events. This
  * equals the trapezoidal area under the empirical ROC curve ({@link rocCurve}).
- * Standard error (Hanley & McNeil 1982, eq. 2): SE = √{[A(1 − A) + (n₁ − 1)(Q₁ − A²) + (n₀ − 1)(Q₂ − A²)] /
+ * Standard error (Hanley & McNeil 1982): SE = √{[A(1 − A) + (n₁ − 1)(Q₁ − A²) + (n₀ − 1)(Q₂ − A²)] /
  * (n₁·n₀)}, with Q₁ = A/(2 − A) and Q₂ = 2A²/(1 + A) (the exponential approximation).
  *
  * @param scores - forecast scores or probabilities, larger = event more likely (finite numbers).
@@ -20,9 +20,9 @@ import { StatsInputError } from "./StatsInputError.js";
  * @example
  * ```ts
  * // Hanley & McNeil (1982) Table I: 58 normal and 51 abnormal CT images rated 1 … 5.
- * const ratings = [...repeat(1, 33), ...repeat(2, 6), ...repeat(3, 6), ...repeat(4, 11), ...repeat(5, 2),
- *                  ...repeat(1, 3), ...repeat(2, 2), ...repeat(3, 2), ...repeat(4, 11), ...repeat(5, 33)];
- * const abnormal = [...repeat(0, 58), ...repeat(1, 51)];
+ * const expand = (counts: number[]) => counts.flatMap((count, index) => Array<number>(count).fill(index + 1));
+ * const ratings = [...expand([33, 6, 6, 11, 2]), ...expand([3, 2, 2, 11, 33])];
+ * const abnormal = ratings.map((_, index) => (index < 58 ? 0 : 1));
  * rocArea(ratings, abnormal); // => { area: 0.893, standardError: 0.032 }
  * ```
  * @see Hanley J.A., McNeil B.J. (1982) "The meaning and use of the area under a receiver operating

@@ -52,7 +52,7 @@ describe("rocArea(scores, outcomes)", () => {
     // Published area 0.893 (REFERENCES.md §6, V-secondary); C: 0.893171.
     expect(area).toBeCloseTo(0.893, 3);
     expect(area).toBeCloseTo(0.893171, 6);
-    // Published SE 0.032 is from memory (M); recomputed with their eq. 2 (C): 0.032487.
+    // Published SE 0.032 is from memory (M); recomputed with their formula (C): 0.032487.
     expect(standardError).toBeCloseTo(0.032, 3);
     expect(standardError).toBeCloseTo(0.032487, 6);
   });
@@ -78,7 +78,7 @@ describe("rocArea(scores, outcomes)", () => {
     }
   });
 
-  it("standard error follows Hanley & McNeil eq. 2 with Q1 = A/(2 − A), Q2 = 2A²/(1 + A)", () => {
+  it("standard error follows Hanley & McNeil (1982) with Q1 = A/(2 − A), Q2 = 2A²/(1 + A)", () => {
     const scores = [0.9, 0.8, 0.7, 0.6, 0.55, 0.4, 0.3, 0.2, 0.1];
     const outcomes: (0 | 1)[] = [1, 1, 0, 1, 0, 1, 0, 0, 0];
     const { area, standardError } = rocArea(scores, outcomes);
