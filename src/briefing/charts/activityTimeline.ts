@@ -10,6 +10,8 @@ import {
   formatSigned,
   isDrawable,
   legend,
+  legendExtraHeight,
+  type LegendEntry,
   makeFrame,
   notEnoughData,
   svgOpen,
@@ -65,7 +67,19 @@ const MARGINS = { top: 22, right: 64, bottom: 64, left: 64 };
  * Summit NJ (bar and step displays of long series; a second scale kept visually separate).
  */
 export function activityTimeline(input: Readonly<ActivityTimelineInput>, options?: ChartOptions): string {
-  const frame = makeFrame(options, { width: 680, height: 240 }, MARGINS);
+  const thresholdText = isDrawable(input.threshold)
+    ? `Fire-year threshold (${input.threshold < 1 ? formatSigned(input.threshold, 2) : String(Math.round(input.threshold))})`
+    : "Fire-year threshold: none";
+  const entries: LegendEntry[] = [
+      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.fireYear })}/>`, label: "Fire years" },
+      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.otherYear })}/>`, label: "Other years" },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.ink, "stroke-width": 1.2, "stroke-dasharray": "6 3" })}/>`, label: thresholdText },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.sampleDepth, "stroke-width": 1.6 })}/>`, label: "Sites recording (right axis)" },
+    ];
+  const frame = makeFrame(options, { width: 680, height: 240 }, (width) => ({
+    ...MARGINS,
+    bottom: MARGINS.bottom + legendExtraHeight(entries, width),
+  }));
   const years = input.years.filter((entry) => isDrawable(entry.year)).slice().sort((a, b) => a.year - b.year);
   const withActivity = years.filter(
     (entry): entry is ActivityTimelineYear & { activity: number } => isDrawable(entry.activity),
@@ -91,7 +105,7 @@ export function activityTimeline(input: Readonly<ActivityTimelineInput>, options
     .nice(5);
   const maxDepth = Math.max(0, ...years.map((entry) => (isDrawable(entry.sitesRecording) ? entry.sitesRecording : 0)));
   const depth = scaleLinear()
-    .domain([0, maxDepth > 0 ? maxDepth : 1])
+    .domain([0, Math.max(maxDepth, 5)])
     .range([frame.bottom, frame.top])
     .nice(5);
 
@@ -108,8 +122,8 @@ export function activityTimeline(input: Readonly<ActivityTimelineInput>, options
     });
   }
   body += axisVertical(y, frame, { title: input.measureLabel, ticks: 5, grid: true });
-  body += axisVertical(depth, frame, { title: "Sites recording", ticks: 5, format: "d", colour: palette.sampleDepth }, "right");
-  body += axisBottom(x, frame, { title: "Year", ticks: 8, format: "d" });
+  body += axisVertical(depth, frame, { title: "Sites recording", ticks: 5, format: "d", integer: true, colour: palette.sampleDepth }, "right");
+  body += axisBottom(x, frame, { title: "Year", ticks: 8, format: "d", integer: true });
 
   const barPath = (fire: boolean): string => {
     let d = "";
@@ -147,19 +161,6 @@ export function activityTimeline(input: Readonly<ActivityTimelineInput>, options
     body += `<path${attrs({ d: depthLine, fill: "none", stroke: palette.sampleDepth, "stroke-width": 1.6 })}/>`;
   }
 
-  const thresholdText = isDrawable(input.threshold)
-    ? `Fire-year threshold (${input.threshold < 1 ? formatSigned(input.threshold, 2) : String(Math.round(input.threshold))})`
-    : "Fire-year threshold: none";
-  body += legend(
-    [
-      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.fireYear })}/>`, label: "Fire years" },
-      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.otherYear })}/>`, label: "Other years" },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.ink, "stroke-width": 1.2, "stroke-dasharray": "6 3" })}/>`, label: thresholdText },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.sampleDepth, "stroke-width": 1.6 })}/>`, label: "Sites recording (right axis)" },
-    ],
-    frame.left,
-    frame.bottom + 52,
-    frame.right - frame.left,
-  );
+  body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, `Fire activity by year: ${input.measureLabel}`)}${body}</svg>`;
 }

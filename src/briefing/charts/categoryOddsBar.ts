@@ -24,7 +24,7 @@ export interface CategoryOddsBarInput {
   readonly above: ChartInterval;
 }
 
-const MARGINS = { top: 16, right: 16, bottom: 44, left: 60 };
+const MARGINS = { top: 16, right: 76, bottom: 44, left: 60 };
 const CATEGORIES = [
   { key: "below", label: "Below normal" },
   { key: "near", label: "Near normal" },
@@ -33,8 +33,9 @@ const CATEGORIES = [
 
 /**
  * Category odds bars: the chance of a below-, near- and above-normal fire year as three bars
- * (blue, grey, amber) with interval whiskers, a dashed reference line at one third (equal odds,
- * labelled "Equal odds 33%") and the estimate written above each bar in whole percent.
+ * (blue, grey, amber) with interval whiskers, a dashed reference line at one third (labelled
+ * "Equal odds (33%)") and, under each category name, the estimate and its interval in whole
+ * percent, e.g. "53% (40–66%)".
  *
  * The y axis runs 0–100% in 20% steps. A category with a null estimate shows "not enough data"
  * in its place; when all three are null the plot shows "not enough data" over the axes.
@@ -76,7 +77,6 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
     drawn += 1;
     const top = y(value.estimate);
     body += `<rect${attrs({ x: start, y: top, width: x.bandwidth(), height: Math.max(frame.bottom - top, 0.5), fill: palette[category.key], stroke: palette.inkMuted, "stroke-width": 0.6 })}/>`;
-    let labelY = top - 6;
     if (isDrawable(value.lower) && isDrawable(value.upper)) {
       const yl = y(value.lower);
       const yu = y(value.upper);
@@ -84,10 +84,13 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
       for (const end of [yl, yu]) {
         body += `<line${attrs({ x1: middle - 7, x2: middle + 7, y1: end, y2: end, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
       }
-      labelY = Math.min(labelY, yu - 6);
     }
-    body += svgText(middle + x.bandwidth() / 2 - 4, Math.max(labelY, frame.top + 10), formatPercent(value.estimate), {
-      "text-anchor": "end",
+    const interval =
+      isDrawable(value.lower) && isDrawable(value.upper)
+        ? ` (${formatPercent(value.lower).replace("%", "")}\u2013${formatPercent(value.upper)})`
+        : "";
+    body += svgText(middle, frame.bottom + 32, `${formatPercent(value.estimate)}${interval}`, {
+      "text-anchor": "middle",
       "font-size": 13,
       "font-weight": 700,
       fill: palette.ink,
@@ -95,7 +98,8 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
   }
   const third = y(1 / 3);
   body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: third, y2: third, stroke: palette.ink, "stroke-width": 1.2, "stroke-dasharray": "6 4" })}/>`;
-  body += svgText(frame.right - 2, third - 5, "Equal odds 33%", { "text-anchor": "end", fill: palette.ink });
+  body += svgText(frame.right + 6, third - 3, "Equal odds", { fill: palette.ink });
+  body += svgText(frame.right + 6, third + 11, "(33%)", { fill: palette.ink });
   if (drawn === 0) body += notEnoughData(frame);
   return `${svgOpen(frame, "Chance of a below-, near- or above-normal fire year")}${body}</svg>`;
 }

@@ -7,6 +7,9 @@ import {
   formatPercent,
   isDrawable,
   legend,
+  legendExtraHeight,
+  type LegendEntry,
+  LEGEND_INSET,
   makeFrame,
   notEnoughData,
   svgOpen,
@@ -72,8 +75,29 @@ const MARGINS = { top: 14, right: 150, bottom: 64, left: 112 };
  */
 export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options?: ChartOptions): string {
   const rows = input.phases;
-  const defaultHeight = Math.max(180, MARGINS.top + 26 + 34 * Math.max(rows.length, 2) + MARGINS.bottom);
-  const frame = makeFrame(options, { width: 680, height: defaultHeight }, MARGINS);
+  const base = input.baseRate;
+  const entries: LegendEntry[] = [
+    {
+      symbol: `<line${attrs({ x1: -7, x2: 7, y1: 0, y2: 0, stroke: palette.estimate, "stroke-width": 2.5 })}/><circle${attrs({ r: 4.5, fill: palette.estimate })}/>`,
+      label: "Chance in phase, 95% interval",
+    },
+    {
+      symbol: `<rect${attrs({ x: -7, y: -6, width: 14, height: 12, fill: palette.baseRate, "fill-opacity": 0.14 })}/><line${attrs({ x1: 0, x2: 0, y1: -6, y2: 6, stroke: palette.baseRate, "stroke-width": 2, "stroke-dasharray": "3 2" })}/>`,
+      label: isDrawable(base.estimate) ? `Base rate, all years (${formatPercent(base.estimate)})` : "Base rate: not enough data",
+    },
+  ];
+  if (input.phases.some((row) => row.smallSample && isDrawable(row.estimate))) {
+    entries.push({
+      symbol: `<circle${attrs({ r: 4.5, fill: "#ffffff", stroke: palette.estimate, "stroke-width": 2 })}/>`,
+      label: "Hollow: few years",
+    });
+  }
+  const defaultHeight = Math.max(180, MARGINS.top + 26 + 34 * Math.max(rows.length, 2) + MARGINS.bottom) +
+    legendExtraHeight(entries, options?.width ?? 680);
+  const frame = makeFrame(options, { width: 680, height: defaultHeight }, (width) => ({
+    ...MARGINS,
+    bottom: MARGINS.bottom + legendExtraHeight(entries, width),
+  }));
   const plotTop = frame.top + 22;
   const x = scaleLinear().domain([0, 1]).range([frame.left, frame.right]).clamp(true);
   const y = scaleBand<string>()
@@ -83,8 +107,7 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
     .paddingOuter(0.2);
 
   let body = axisBottom(x, frame, { title: "Chance of a fire year", ticks: 10, format: ".0%", grid: true });
-  body += svgText(frame.left - 10, frame.top + 8, `${input.indexName} phase`, {
-    "text-anchor": "end",
+  body += svgText(LEGEND_INSET, frame.top + 8, `${input.indexName} phase`, {
     "font-size": 12,
     "font-weight": 600,
   });
@@ -93,7 +116,6 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
     fill: palette.inkMuted,
   });
 
-  const base = input.baseRate;
   if (isDrawable(base.lower) && isDrawable(base.upper)) {
     const x0 = x(Math.min(base.lower, base.upper));
     const x1 = x(Math.max(base.lower, base.upper));
@@ -139,22 +161,6 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
   });
   if (drawable.length === 0) body += notEnoughData(frame);
 
-  const entries = [
-    {
-      symbol: `<line${attrs({ x1: -7, x2: 7, y1: 0, y2: 0, stroke: palette.estimate, "stroke-width": 2.5 })}/><circle${attrs({ r: 4.5, fill: palette.estimate })}/>`,
-      label: "Chance in phase, 95% interval",
-    },
-    {
-      symbol: `<rect${attrs({ x: -7, y: -6, width: 14, height: 12, fill: palette.baseRate, "fill-opacity": 0.14 })}/><line${attrs({ x1: 0, x2: 0, y1: -6, y2: 6, stroke: palette.baseRate, "stroke-width": 2, "stroke-dasharray": "3 2" })}/>`,
-      label: isDrawable(base.estimate) ? `Base rate, all years (${formatPercent(base.estimate)})` : "Base rate: not enough data",
-    },
-  ];
-  if (rows.some((row) => row.smallSample && isDrawable(row.estimate))) {
-    entries.push({
-      symbol: `<circle${attrs({ r: 4.5, fill: "#ffffff", stroke: palette.estimate, "stroke-width": 2 })}/>`,
-      label: "Hollow: few years, read with care",
-    });
-  }
-  body += legend(entries, frame.left, frame.bottom + 52, frame.width - frame.left - 10);
+  body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, `Chance of a fire year by ${input.indexName} phase`)}${body}</svg>`;
 }

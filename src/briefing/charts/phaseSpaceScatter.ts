@@ -9,6 +9,8 @@ import {
   coord,
   isDrawable,
   legend,
+  legendExtraHeight,
+  type LegendEntry,
   makeFrame,
   notEnoughData,
   svgOpen,
@@ -71,7 +73,19 @@ const diamond = symbol(symbolDiamond, 260);
  * Association 79(387):531–554 (position on common scales; redundant shape coding).
  */
 export function phaseSpaceScatter(input: Readonly<PhaseSpaceScatterInput>, options?: ChartOptions): string {
-  const frame = makeFrame(options, { width: 680, height: 320 }, MARGINS);
+  const currentKnown = input.current !== null && isDrawable(input.current.x) && isDrawable(input.current.y);
+  const entries: LegendEntry[] = [
+    { symbol: `<circle${attrs({ r: 3, fill: palette.otherYear })}/>`, label: "Other years" },
+    { symbol: `<path${attrs({ d: triangle() ?? "", fill: palette.fireYear, stroke: palette.ink, "stroke-width": 0.6 })}/>`, label: "Fire years" },
+    { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "Phase cuts" },
+  ];
+  if (currentKnown) {
+    entries.push({ symbol: `<path${attrs({ d: symbol(symbolDiamond, 90)() ?? "", fill: palette.current })}/>`, label: "This season" });
+  }
+  const frame = makeFrame(options, { width: 680, height: 320 }, (width) => ({
+    ...MARGINS,
+    bottom: MARGINS.bottom + legendExtraHeight(entries, width),
+  }));
   const points = input.points.filter(
     (point): point is PhaseSpacePoint & { x: number; y: number } => isDrawable(point.x) && isDrawable(point.y),
   );
@@ -133,14 +147,6 @@ export function phaseSpaceScatter(input: Readonly<PhaseSpaceScatterInput>, optio
     });
   }
 
-  const entries = [
-    { symbol: `<circle${attrs({ r: 3, fill: palette.otherYear })}/>`, label: "Other years" },
-    { symbol: `<path${attrs({ d: triangle() ?? "", fill: palette.fireYear, stroke: palette.ink, "stroke-width": 0.6 })}/>`, label: "Fire years" },
-    { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "Phase cuts" },
-  ];
-  if (current) {
-    entries.push({ symbol: `<path${attrs({ d: symbol(symbolDiamond, 90)() ?? "", fill: palette.current })}/>`, label: "This season" });
-  }
-  body += legend(entries, frame.left, frame.bottom + 52, frame.right - frame.left);
+  body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, `${input.yName} against ${input.xName}, fire years marked`)}${body}</svg>`;
 }

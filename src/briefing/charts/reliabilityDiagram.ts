@@ -8,6 +8,8 @@ import {
   type ChartOptions,
   isDrawable,
   legend,
+  legendExtraHeight,
+  type LegendEntry,
   makeFrame,
   notEnoughData,
   svgOpen,
@@ -36,13 +38,14 @@ export interface ReliabilityDiagramInput {
   readonly climatology: number | null;
 }
 
-const MARGINS = { top: 12, right: 16, bottom: 80, left: 60 };
+const MARGINS = { top: 30, right: 16, bottom: 80, left: 60 };
 
 /**
  * Reliability diagram: observed frequency of fire years against mean forecast probability per
  * bin, with the diagonal of perfect reliability (dashed), the climatological frequency as a
  * horizontal and a vertical teal line, and one dot per non-empty bin whose area is proportional to
- * its number of hindcasts, annotated "n = 12" (integer).
+ * its number of hindcasts; the counts (integers) are written in a row above the plot at each
+ * bin's centre, after the letter "n".
  *
  * Both axes run 0–100% with ticks every 20% (whole-percent format). Bins with a null mean
  * forecast or observed frequency, or a zero count, are left out; with none left the plot shows
@@ -60,7 +63,15 @@ const MARGINS = { top: 12, right: 16, bottom: 80, left: 60 };
  * Statistics) 26(1):41–47 (the reliability diagram).
  */
 export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, options?: ChartOptions): string {
-  const frame = makeFrame(options, { width: 340, height: 330 }, MARGINS);
+  const entries: LegendEntry[] = [
+      { symbol: `<circle${attrs({ r: 5, fill: palette.estimate })}/>`, label: "Hindcast bins (area ∝ number n)" },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 5, y2: -5, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "Perfect reliability" },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.baseRate, "stroke-width": 1.5, "stroke-dasharray": "2 3" })}/>`, label: "Climatology" },
+    ];
+  const frame = makeFrame(options, { width: 340, height: 330 }, (width) => ({
+    ...MARGINS,
+    bottom: MARGINS.bottom + legendExtraHeight(entries, width),
+  }));
   const x = scaleLinear().domain([0, 1]).range([frame.left, frame.right]).clamp(true);
   const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
   const bins = input.bins.filter(
@@ -86,27 +97,20 @@ export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, opt
     const cy = y(bin.observedFrequency);
     const r = Math.max(2.5, radius(bin.count));
     body += `<circle${attrs({ cx, cy, r, fill: palette.estimate, "fill-opacity": 0.85, stroke: "#ffffff", "stroke-width": 1 })}/>`;
-    const right = cx < frame.right - 50;
-    body += svgText(right ? cx + r + 3 : cx - r - 3, cy - r + 2, `n = ${Math.round(bin.count)}`, {
-      "text-anchor": right ? "start" : "end",
+  }
+  if (bins.length > 0) {
+    body += svgText(frame.left - 8, frame.top - 9, "n", { "text-anchor": "end", "font-size": 10, fill: palette.inkMuted });
+  }
+  for (const bin of bins) {
+    const middle = isDrawable(bin.lower) && isDrawable(bin.upper) ? (bin.lower + bin.upper) / 2 : bin.meanForecast;
+    body += svgText(x(middle), frame.top - 9, String(Math.round(bin.count)), {
+      "text-anchor": "middle",
       "font-size": 10,
-      fill: palette.ink,
-      stroke: "#ffffff",
-      "stroke-width": 2.5,
-      "paint-order": "stroke",
+      fill: palette.inkMuted,
     });
   }
   if (bins.length === 0) body += notEnoughData(frame);
 
-  body += legend(
-    [
-      { symbol: `<circle${attrs({ r: 5, fill: palette.estimate })}/>`, label: "Hindcast bins (area ∝ count)" },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 5, y2: -5, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "Perfect reliability" },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.baseRate, "stroke-width": 1.5, "stroke-dasharray": "2 3" })}/>`, label: "Climatology" },
-    ],
-    frame.left - 40,
-    frame.bottom + 52,
-    frame.width - frame.left + 30,
-  );
+  body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, "Reliability of the hindcast fire-year probabilities")}${body}</svg>`;
 }

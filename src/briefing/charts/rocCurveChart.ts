@@ -8,6 +8,8 @@ import {
   type ChartOptions,
   isDrawable,
   legend,
+  legendExtraHeight,
+  type LegendEntry,
   makeFrame,
   notEnoughData,
   svgOpen,
@@ -54,7 +56,14 @@ const MARGINS = { top: 12, right: 16, bottom: 80, left: 60 };
  * Quarterly Journal of the Royal Meteorological Society 128:2145–2166.
  */
 export function rocCurveChart(input: Readonly<RocCurveChartInput>, options?: ChartOptions): string {
-  const frame = makeFrame(options, { width: 340, height: 330 }, MARGINS);
+  const entries: LegendEntry[] = [
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.estimate, "stroke-width": 2 })}/><circle${attrs({ r: 3, fill: palette.estimate })}/>`, label: "Hindcast ROC curve" },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 5, y2: -5, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "No skill (area 0.50)" },
+    ];
+  const frame = makeFrame(options, { width: 340, height: 330 }, (width) => ({
+    ...MARGINS,
+    bottom: MARGINS.bottom + legendExtraHeight(entries, width),
+  }));
   const x = scaleLinear().domain([0, 1]).range([frame.left, frame.right]).clamp(true);
   const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
   const given = input.points
@@ -93,14 +102,6 @@ export function rocCurveChart(input: Readonly<RocCurveChartInput>, options?: Cha
     "font-weight": 700,
     fill: palette.estimate,
   });
-  body += legend(
-    [
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.estimate, "stroke-width": 2 })}/><circle${attrs({ r: 3, fill: palette.estimate })}/>`, label: "Hindcast ROC curve" },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 5, y2: -5, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "No skill (area 0.50)" },
-    ],
-    frame.left - 40,
-    frame.bottom + 52,
-    frame.width - frame.left + 30,
-  );
+  body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, "ROC curve of the hindcast fire-year probabilities")}${body}</svg>`;
 }

@@ -9,6 +9,8 @@ import {
   formatSigned,
   isDrawable,
   legend,
+  legendExtraHeight,
+  type LegendEntry,
   makeFrame,
   notEnoughData,
   svgOpen,
@@ -57,7 +59,16 @@ const MARGINS = { top: 12, right: 16, bottom: 64, left: 64 };
  * American Fisheries Society 118:608–618.
  */
 export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions): string {
-  const frame = makeFrame(options, { width: 680, height: 260 }, MARGINS);
+  const entries: LegendEntry[] = [
+      { symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.estimate })}/>`, label: "Mean departure outside 95% limits" },
+      { symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.interval })}/>`, label: "inside" },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.limit95, "stroke-width": 2 })}/>`, label: "95% limits" },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.limit99, "stroke-width": 2, "stroke-dasharray": "5 3" })}/>`, label: "99% limits" },
+    ];
+  const frame = makeFrame(options, { width: 680, height: 260 }, (width) => ({
+    ...MARGINS,
+    bottom: MARGINS.bottom + legendExtraHeight(entries, width),
+  }));
   const keys = input.lags.map((lag) => String(lag));
   const x = scaleBand<string>().domain(keys).range([frame.left, frame.right]).paddingInner(0.3).paddingOuter(0.15);
   const step = x.step();
@@ -114,8 +125,9 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
       if (start === undefined) return;
       const limits = limitsList[index];
       const value = limits && isDrawable(limits[0]) && isDrawable(limits[1]) ? limits[side] : null;
-      points.push({ x: start - (step - x.bandwidth()) / 2, y: value });
-      points.push({ x: start + x.bandwidth() + (step - x.bandwidth()) / 2, y: value });
+      const gap = (step - x.bandwidth()) / 2;
+      points.push({ x: Math.max(frame.left, start - gap), y: value });
+      points.push({ x: Math.min(frame.right, start + x.bandwidth() + gap), y: value });
     });
     const path = line<{ x: number; y: number | null }>()
       .defined((point) => point.y !== null)
@@ -136,16 +148,6 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
   body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(0), y2: y(0), stroke: palette.ink, "stroke-width": 1 })}/>`;
   if (drawn === 0) body += notEnoughData(frame);
 
-  body += legend(
-    [
-      { symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.estimate })}/>`, label: "Mean departure outside 95% limits" },
-      { symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.interval })}/>`, label: "inside" },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.limit95, "stroke-width": 2 })}/>`, label: "95% limits" },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.limit99, "stroke-width": 2, "stroke-dasharray": "5 3" })}/>`, label: "99% limits" },
-    ],
-    frame.left,
-    frame.bottom + 52,
-    frame.right - frame.left,
-  );
+  body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, `Superposed epoch analysis of ${input.indexName} around fire years`)}${body}</svg>`;
 }

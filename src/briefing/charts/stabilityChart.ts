@@ -11,6 +11,8 @@ import {
   formatPercent,
   isDrawable,
   legend,
+  legendExtraHeight,
+  type LegendEntry,
   makeFrame,
   notEnoughData,
   svgOpen,
@@ -62,7 +64,28 @@ const DASHES: readonly (string | undefined)[] = [undefined, "7 3", "2 2", "9 3 2
  * Journal of the American Statistical Association 22(158):209–212 (the interval drawn by default).
  */
 export function stabilityChart(input: Readonly<StabilityChartInput>, options?: ChartOptions): string {
-  const frame = makeFrame(options, { width: 680, height: 260 }, MARGINS);
+  const styles = input.labels.map((label, index) => ({
+    label,
+    colour: palette.series[index % palette.series.length] ?? palette.estimate,
+    marker: symbol(MARKERS[index % MARKERS.length] ?? symbolCircle, 36)() ?? "",
+    dash: DASHES[Math.floor(index / palette.series.length) % DASHES.length],
+  }));
+  const entries: LegendEntry[] = styles.map((style) => ({
+    symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: style.colour, "stroke-width": 2, "stroke-dasharray": style.dash })}/><path${attrs({ d: style.marker, fill: style.colour })}/>`,
+    label: style.label,
+  }));
+  entries.push({
+    symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`,
+    label: isDrawable(input.baseRate) ? `Base rate (${formatPercent(input.baseRate)})` : "Base rate: not enough data",
+  });
+  entries.push({
+    symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.series[0], "fill-opacity": 0.12 })}/>`,
+    label: "95% interval",
+  });
+  const frame = makeFrame(options, { width: 680, height: 260 }, (width) => ({
+    ...MARGINS,
+    bottom: MARGINS.bottom + legendExtraHeight(entries, width),
+  }));
   const windows = input.windows
     .filter((window) => isDrawable(window.first) && isDrawable(window.last))
     .map((window) => ({ middle: (window.first + window.last) / 2, window }))
@@ -75,7 +98,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
     .range([frame.left + 8, frame.right - 8]);
   const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
 
-  let body = axisBottom(x, frame, { title: "Middle year of window", ticks: 8, format: "d" });
+  let body = axisBottom(x, frame, { title: "Middle year of window", ticks: 8, format: "d", integer: true });
   body += axisVertical(y, frame, { title: "Chance of a fire year", ticks: 5, format: ".0%", grid: true });
   if (isDrawable(input.baseRate)) {
     body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(input.baseRate), y2: y(input.baseRate), stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`;
@@ -83,26 +106,27 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
 
   type Point = { middle: number; estimate: number | null; lower: number | null; upper: number | null };
   let drawn = 0;
-  const entries: { symbol: string; label: string }[] = [];
-  input.labels.forEach((label, index) => {
-    const colour = palette.series[index % palette.series.length] ?? palette.estimate;
-    const marker = symbol(MARKERS[index % MARKERS.length] ?? symbolCircle, 36)() ?? "";
-    const dash = DASHES[Math.floor(index / palette.series.length) % DASHES.length];
-    const points: Point[] = windows.map(({ middle, window }) => {
-      const phase = window.phases.find((candidate) => candidate.label === label);
+  const series = styles.map((style) => ({
+    ...style,
+    points: windows.map(({ middle, window }): Point => {
+      const phase = window.phases.find((candidate) => candidate.label === style.label);
       return {
         middle,
         estimate: phase && isDrawable(phase.estimate) ? phase.estimate : null,
         lower: phase && isDrawable(phase.lower) ? phase.lower : null,
         upper: phase && isDrawable(phase.upper) ? phase.upper : null,
       };
-    });
+    }),
+  }));
+  for (const { colour, points } of series) {
     const band = area<Point>()
       .defined((point) => point.lower !== null && point.upper !== null)
       .x((point) => x(point.middle))
       .y0((point) => y(point.lower ?? 0))
       .y1((point) => y(point.upper ?? 0))(points);
-    if (band) body += `<path${attrs({ d: band, fill: colour, "fill-opacity": 0.12 })}/>`;
+    if (band) body += `<path${attrs({ d: band, fill: colour, "fill-opacity": 0.1 })}/>`;
+  }
+  for (const { colour, marker, dash, points } of series) {
     const path = line<Point>()
       .defined((point) => point.estimate !== null)
       .x((point) => x(point.middle))
@@ -113,20 +137,8 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
       drawn += 1;
       body += `<path${attrs({ d: marker, transform: `translate(${coord(x(point.middle))} ${coord(y(point.estimate))})`, fill: colour, stroke: "#ffffff", "stroke-width": 0.8 })}/>`;
     }
-    entries.push({
-      symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: colour, "stroke-width": 2, "stroke-dasharray": dash })}/><path${attrs({ d: marker, fill: colour })}/>`,
-      label,
-    });
-  });
+  }
   if (drawn === 0) body += notEnoughData(frame);
-  entries.push({
-    symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`,
-    label: isDrawable(input.baseRate) ? `Base rate (${formatPercent(input.baseRate)})` : "Base rate: not enough data",
-  });
-  entries.push({
-    symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.series[0], "fill-opacity": 0.12 })}/>`,
-    label: "95% interval",
-  });
-  body += legend(entries, frame.left, frame.bottom + 52, frame.right - frame.left);
+  body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, "Chance of a fire year by phase in moving windows")}${body}</svg>`;
 }

@@ -59,7 +59,8 @@ export function isDrawable(value: unknown): value is number {
  *
  * @param options - caller's width and height (optional).
  * @param defaults - the chart's default width and height.
- * @param margins - margins around the plot area.
+ * @param margins - margins around the plot area, or a function of the chart width giving them
+ *   (so a chart can reserve room for a legend that wraps).
  * @returns the frame.
  * @throws RangeError when a width or height is not a finite number in its range.
  * @example
@@ -68,7 +69,7 @@ export function isDrawable(value: unknown): value is number {
 export function makeFrame(
   options: ChartOptions | undefined,
   defaults: { readonly width: number; readonly height: number },
-  margins: Margins,
+  margins: Margins | ((width: number) => Margins),
 ): Frame {
   const width = options?.width ?? defaults.width;
   const height = options?.height ?? defaults.height;
@@ -78,14 +79,12 @@ export function makeFrame(
   if (!isDrawable(height) || height < 120 || height > 4000) {
     throw new RangeError(`chart height must be a number from 120 to 4000 (got ${String(height)})`);
   }
-  return {
-    width,
-    height,
-    left: margins.left,
-    right: width - margins.right,
-    top: margins.top,
-    bottom: height - margins.bottom,
-  };
+  const resolved = typeof margins === "function" ? margins(width) : margins;
+  const left = Math.min(resolved.left, width / 2 - 20);
+  const right = Math.max(width - resolved.right, width / 2 + 20);
+  const top = Math.min(resolved.top, height / 2 - 20);
+  const bottom = Math.max(height - resolved.bottom, height / 2 + 20);
+  return { width, height, left, right, top, bottom };
 }
 
 /**
@@ -202,12 +201,17 @@ export interface AxisOptions {
   readonly grid?: boolean;
   /** Colour of tick labels and title (default muted ink). */
   readonly colour?: string;
+  /** Keep only integer ticks (counts, years). */
+  readonly integer?: boolean;
 }
 
 function tickList(scale: ScaleLinear<number, number>, options: AxisOptions): { value: number; label: string }[] {
   const count = options.ticks ?? 5;
   const format = scale.tickFormat(count, options.format);
-  return scale.ticks(count).map((value) => ({ value, label: format(value) }));
+  return scale
+    .ticks(count)
+    .filter((value) => !options.integer || Number.isInteger(value))
+    .map((value) => ({ value, label: format(value) }));
 }
 
 /**
@@ -288,7 +292,7 @@ export function axisVertical(
  *
  * @param scale - a d3 band scale over the plot's x extent.
  * @param frame - the chart frame.
- * @param title - axis title.
+ * @param title - axis title (none when empty).
  * @param label - text of each band's tick.
  * @returns SVG elements of the axis.
  * @example
@@ -309,11 +313,13 @@ export function axisBottomBand(
     out += svgText(x, frame.bottom + 16, label(key), { "text-anchor": "middle", fill: palette.inkMuted });
   }
   out += `<line${attrs({ x1: frame.left, x2: frame.right, y1: frame.bottom, y2: frame.bottom, stroke: palette.inkMuted })}/>`;
-  out += svgText((frame.left + frame.right) / 2, frame.bottom + 33, title, {
-    "text-anchor": "middle",
-    "font-size": AXIS_TITLE_SIZE,
-    fill: palette.ink,
-  });
+  if (title !== "") {
+    out += svgText((frame.left + frame.right) / 2, frame.bottom + 33, title, {
+      "text-anchor": "middle",
+      "font-size": AXIS_TITLE_SIZE,
+      fill: palette.ink,
+    });
+  }
   return `${out}</g>`;
 }
 
@@ -330,6 +336,9 @@ export function notEnoughData(frame: Frame): string {
     "text-anchor": "middle",
     "font-size": 14,
     fill: palette.inkMuted,
+    stroke: "#ffffff",
+    "stroke-width": 4,
+    "paint-order": "stroke",
     class: "not-enough-data",
   });
 }
@@ -354,26 +363,73 @@ export interface LegendEntry {
   readonly label: string;
 }
 
+/** Left edge and row height of chart legends. */
+export const LEGEND_INSET = 12;
+const LEGEND_ROW = 16;
+
+function legendWidth(entry: LegendEntry): number {
+  return 22 + estimateTextWidth(entry.label) + 16;
+}
+
 /**
- * A one-row legend (wrapping to further rows when wider than `maxWidth`).
+ * Number of rows a legend takes when it wraps at `maxWidth`.
  *
  * @param entries - symbols and labels.
- * @param x - left edge.
- * @param y - centre line of the first row.
  * @param maxWidth - width available.
+ * @returns rows, at least 1.
+ * @example
+ * legendRows([{ symbol: "", label: "Fire years" }], 600); // => 1
+ */
+export function legendRows(entries: readonly LegendEntry[], maxWidth: number): number {
+  let rows = 1;
+  let used = 0;
+  for (const entry of entries) {
+    const width = legendWidth(entry);
+    if (used > 0 && used + width > maxWidth) {
+      rows += 1;
+      used = 0;
+    }
+    used += width;
+  }
+  return rows;
+}
+
+/**
+ * The extra bottom margin a legend needs beyond its first row, for a chart of the given width
+ * (the legend spans the chart from {@link LEGEND_INSET} to the right edge less the inset).
+ *
+ * @param entries - symbols and labels.
+ * @param chartWidth - the chart's viewBox width.
+ * @returns extra height in user units (0 for a one-row legend).
+ * @example
+ * legendExtraHeight([{ symbol: "", label: "Fire years" }], 680); // => 0
+ */
+export function legendExtraHeight(entries: readonly LegendEntry[], chartWidth: number): number {
+  return (legendRows(entries, chartWidth - 2 * LEGEND_INSET) - 1) * LEGEND_ROW;
+}
+
+/**
+ * A legend across the chart from {@link LEGEND_INSET}, wrapping to further rows when wider than
+ * the chart; its first row is centred on `y`.
+ *
+ * @param entries - symbols and labels.
+ * @param frame - the chart frame.
+ * @param y - centre line of the first row.
  * @returns a `<g>` element.
  * @example
- * legend([{ symbol: "<circle r='4'/>", label: "Fire years" }], 50, 10, 600);
+ * legend([{ symbol: "<circle r='4'/>", label: "Fire years" }], frame, 250);
  */
-export function legend(entries: readonly LegendEntry[], x: number, y: number, maxWidth: number): string {
+export function legend(entries: readonly LegendEntry[], frame: Frame, y: number): string {
+  const x = LEGEND_INSET;
+  const maxWidth = frame.width - 2 * LEGEND_INSET;
   let out = `<g class="legend">`;
   let cursorX = x;
   let cursorY = y;
   for (const entry of entries) {
-    const width = 22 + estimateTextWidth(entry.label) + 16;
+    const width = legendWidth(entry);
     if (cursorX > x && cursorX + width - x > maxWidth) {
       cursorX = x;
-      cursorY += 16;
+      cursorY += LEGEND_ROW;
     }
     out += `<g transform="translate(${coord(cursorX + 8)} ${coord(cursorY)})">${entry.symbol}</g>`;
     out += svgText(cursorX + 22, cursorY + 4, entry.label, { fill: palette.ink });
