@@ -2,6 +2,7 @@
 import { realpathSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Command } from "commander";
+import { briefCommand } from "./brief.js";
 import { checkCommand } from "./check.js";
 import { handleError } from "./handleError.js";
 import { firephaseVersion } from "./version.js";
@@ -21,7 +22,7 @@ export function createProgram(): Command {
     .version(firephaseVersion(), "-V, --version", "print the version")
     .exitOverride()
     .showHelpAfterError("(run firephase --help for usage)");
-  for (const command of [checkCommand()]) {
+  for (const command of [checkCommand(), briefCommand()]) {
     program.addCommand(command.copyInheritedSettings(program));
   }
   return program;

@@ -1,0 +1,147 @@
+import { readFile } from "node:fs/promises";
+import { fileURLToPath } from "node:url";
+import { basename, resolve } from "node:path";
+import { Command } from "commander";
+import { buildBriefingView } from "../briefing/buildBriefingView.js";
+import { embeddedFontCss } from "../briefing/embeddedFonts.js";
+import { escapeHtml } from "../briefing/escapeHtml.js";
+import { BrowserNotFoundError, findBrowser } from "../briefing/findBrowser.js";
+import { PdfPrinter, type PaperSize } from "../briefing/printPdf.js";
+import { renderBriefingHtml } from "../briefing/renderBriefingHtml.js";
+import { runCalibration } from "../calibrate/runCalibration.js";
+import { buildOutlook } from "../outlook/buildOutlook.js";
+import { loadWorkspace } from "../workspace/loadWorkspace.js";
+import { progressReporter } from "./calibrate.js";
+import { UsageError } from "./errors.js";
+import { handleError } from "./handleError.js";
+import { resolveOutlookRequest } from "./outlookRequest.js";
+import { firephaseVersion } from "./version.js";
+import { writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
+
+/** Options of `firephase brief`, as commander parses them. */
+export interface BriefOptions {
+  readonly values?: string;
+  readonly issued?: string;
+  readonly season?: string;
+  readonly out?: string;
+  readonly html?: string;
+  readonly paper?: string;
+  readonly browser?: string;
+}
+
+/** What `brief` needs from the process; tests pass their own. */
+export interface BriefContext {
+  /** Folder that relative --out/--html paths and the default output name refer to. */
+  readonly cwd: string;
+  readonly today: Date;
+  readonly env: Readonly<Record<string, string | undefined>>;
+  /** Path of SAFETY.md, printed in the appendix (default: the package's own). */
+  readonly safetyPath?: string;
+}
+
+/** The files a briefing run wrote. */
+export interface BriefResult {
+  readonly pdfPath: string;
+  readonly htmlPath: string | null;
+  readonly pages: number | null;
+}
+
+/** SAFETY.md of the package (two folders up from src/cli and dist/cli). */
+export const PACKAGE_SAFETY_PATH = fileURLToPath(new URL("../../SAFETY.md", import.meta.url));
+
+function paperOption(value: string | undefined): PaperSize {
+  if (value === undefined) return "a4";
+  const lower = value.toLowerCase();
+  if (lower === "a4" || lower === "letter") return lower;
+  throw new UsageError(`--paper must be a4 or letter (got "${value}")`);
+}
+
+/**
+ * Make the dated PDF briefing of a region: load, calibrate, build the outlook with its
+ * hindcast, render the HTML and print it. The browser starts before the computation so both
+ * run together; one page prints the document. Files are written only at the end, atomically
+ * (a failure anywhere leaves no file at --out and no temporary file).
+ *
+ * Default output: `briefing-<region folder name>-<issue date>.pdf` in `context.cwd`.
+ *
+ * @param region - region folder.
+ * @param options - the command's options (see {@link BriefOptions}).
+ * @param context - working folder, today's date, environment (FIREPHASE_BROWSER).
+ * @returns the absolute paths written.
+ * @throws InputError for bad region data, UsageError for bad options or no usable browser.
+ * @example
+ * await runBrief("demo-region", { out: "brief.pdf" }, { cwd: process.cwd(), today: new Date(), env: process.env });
+ */
+export async function runBrief(region: string, options: BriefOptions, context: BriefContext): Promise<BriefResult> {
+  const paper = paperOption(options.paper);
+  // Start the browser now: it launches while the statistics are computed.
+  const printerPromise = findBrowser({ explicit: options.browser, env: context.env }).then((browser) => PdfPrinter.launch(browser));
+  printerPromise.catch(() => undefined); // observed below; never an unhandled rejection
+  try {
+    const workspace = await loadWorkspace(resolve(context.cwd, region));
+    const request = resolveOutlookRequest(workspace, options, context.today);
+    const calibration = runCalibration(workspace, { onProgress: progressReporter() });
+    const outlook = buildOutlook(workspace, calibration, request);
+    const safetyPath = context.safetyPath ?? PACKAGE_SAFETY_PATH;
+    let safetyMarkdown: string;
+    try {
+      safetyMarkdown = await readFile(safetyPath, "utf8");
+    } catch {
+      throw new Error(`cannot read ${safetyPath}: the briefing prints its cautions and must not be made without them`);
+    }
+    const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper });
+    const html = renderBriefingHtml(view);
+    let printer: PdfPrinter;
+    try {
+      printer = await printerPromise;
+    } catch (error) {
+      if (error instanceof BrowserNotFoundError) throw new UsageError(error.message);
+      throw error;
+    }
+    const printed = await printer.print(html, {
+      paper,
+      footerHtml: escapeHtml(view.footerText),
+      footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]),
+    });
+    const pdfPath = resolve(context.cwd, options.out ?? `briefing-${basename(workspace.root)}-${outlook.issued}.pdf`);
+    const htmlPath = options.html === undefined ? null : resolve(context.cwd, options.html);
+    const files: FileToWrite[] = [{ path: pdfPath, data: printed.pdf }];
+    if (htmlPath !== null) files.push({ path: htmlPath, data: html });
+    await writeFilesAtomic(files);
+    const pageCount = /\/Type\s*\/Pages\b[^>]*?\/Count\s+(\d+)/.exec(Buffer.from(printed.pdf).toString("latin1"));
+    return { pdfPath, htmlPath, pages: pageCount?.[1] === undefined ? null : Number(pageCount[1]) };
+  } finally {
+    await printerPromise.then((printer) => printer.close()).catch(() => undefined);
+  }
+}
+
+/**
+ * `firephase brief <region> [--values …] [--issued DATE] [--season YEAR] [--out FILE.pdf]
+ * [--html FILE.html] [--paper a4|letter] [--browser PATH]`: writes the dated PDF briefing and
+ * prints its path.
+ *
+ * @returns the commander command.
+ * @example
+ * program.addCommand(briefCommand());
+ */
+export function briefCommand(): Command {
+  return new Command("brief")
+    .description("write the dated PDF briefing: odds, phases, skill, charts, methods and cautions")
+    .argument("<region>", "region folder (holds region.json)")
+    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json)")
+    .option("--issued <date>", "issue date YYYY-MM-DD (default: region.json, then today)")
+    .option("--season <year>", "fire season year (default: region.json, then the issue year)")
+    .option("--out <file>", "PDF to write (default: briefing-<region>-<issue date>.pdf here)")
+    .option("--html <file>", "also write the briefing as one self-contained HTML file")
+    .option("--paper <size>", "a4 or letter", "a4")
+    .option("--browser <path>", "Chrome or Chromium to print with (default: FIREPHASE_BROWSER, a system browser, then the bundled one)")
+    .action(async (region: string, options: BriefOptions) => {
+      try {
+        const result = await runBrief(region, options, { cwd: process.cwd(), today: new Date(), env: process.env });
+        process.stdout.write(`${result.pdfPath}\n`);
+        if (result.htmlPath !== null) process.stdout.write(`${result.htmlPath}\n`);
+      } catch (error) {
+        handleError(error);
+      }
+    });
+}
