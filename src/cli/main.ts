@@ -3,8 +3,10 @@ import { realpathSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Command } from "commander";
 import { briefCommand } from "./brief.js";
+import { calibrateCommand } from "./calibrate.js";
 import { checkCommand } from "./check.js";
 import { handleError } from "./handleError.js";
+import { outlookCommand } from "./outlook.js";
 import { firephaseVersion } from "./version.js";
 
 /**
@@ -22,7 +24,7 @@ export function createProgram(): Command {
     .version(firephaseVersion(), "-V, --version", "print the version")
     .exitOverride()
     .showHelpAfterError("(run firephase --help for usage)");
-  for (const command of [checkCommand(), briefCommand()]) {
+  for (const command of [checkCommand(), calibrateCommand(), outlookCommand(), briefCommand()]) {
     program.addCommand(command.copyInheritedSettings(program));
   }
   return program;
