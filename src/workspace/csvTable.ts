@@ -131,16 +131,21 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
     problems.add(typeof lines === "number" ? lines : null, csvErrorMessage(code, String((error as Error).message)));
     return null;
   }
-  for (const problem of parseProblems) problems.add(problem.line, problem.message);
+  // After a quoting error csv-parse cannot tell where the following records start, so the errors
+  // that follow the first one are mostly echoes of it: report the first only.
+  const firstParseProblem = parseProblems[0];
+  if (firstParseProblem !== undefined) problems.add(firstParseProblem.line, firstParseProblem.message);
 
   const located = records.map(({ record, raw, info }) => {
-    const inner = raw.replace(/(\r\n|\n|\r)$/, "").match(LINE_BREAK)?.length ?? 0;
-    return { fields: record, line: info.lines - inner, raw };
+    // `raw` starts with the blank lines skipped before the record and ends with (part of) its line break.
+    const own = raw.replace(/^(?:\r\n|\n|\r)+/, "").replace(/(?:\r\n|\n|\r)$/, "");
+    const inner = own.match(LINE_BREAK)?.length ?? 0;
+    return { fields: record, line: info.lines - inner, raw: own };
   });
   const dataRows: { fields: string[]; line: number }[] = [];
   for (const row of located) {
     if (row.raw.startsWith("#")) {
-      problems.add(row.line, `comment lines are not allowed (found ${quote(row.raw.replace(/(\r\n|\n|\r)$/, ""))})`);
+      problems.add(row.line, `comment lines are not allowed (found ${quote(row.raw)})`);
     } else {
       dataRows.push(row);
     }

@@ -176,7 +176,7 @@ function checkEventsAgainstSites(
       const suggestion = didYouMean(event.value.site, ids);
       problems.add(
         event.line,
-        `unknown site "${event.value.site}" (not in ${sitesName})${suggestion === null ? "" : ` (did you mean "${suggestion}"?)`}`,
+        `unknown site "${event.value.site}" (not in ${sitesName}${suggestion === null ? "" : `; did you mean "${suggestion}"?`})`,
       );
     } else if (event.value.year < site.firstYear || event.value.year > site.lastYear) {
       problems.add(

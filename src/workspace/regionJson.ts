@@ -276,10 +276,12 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
       }
       const found = valueAt(raw, issue.path);
       const subject = issue.path.length === 0 ? "region.json" : `"${dotted(issue.path)}"`;
-      const foundText = found === undefined || issue.code === "custom" ? "" : ` (found ${describeValue(found)})`;
+      const message = issueMessage(issue, found);
+      const showFound = found !== undefined && (issue.code !== "custom" || message.startsWith("must"));
+      const foundText = showFound ? ` (found ${describeValue(found)})` : "";
       problems.add(
         locations.lineOf(issue.path.map((key) => (typeof key === "number" ? key : String(key)))),
-        `${subject} ${issueMessage(issue, found)}${foundText}`,
+        `${subject} ${message}${foundText}`,
       );
     }
   }

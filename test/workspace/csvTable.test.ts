@@ -1,0 +1,61 @@
+import { describe, expect, it } from "vitest";
+import { readCsvTable } from "../../src/workspace/csvTable.js";
+import { ProblemList } from "../../src/workspace/InputError.js";
+
+const read = (text: string | Uint8Array, required: string[] = ["year"]) => {
+  const problems = new ProblemList("f.csv");
+  const table = readCsvTable(typeof text === "string" ? Buffer.from(text, "utf8") : text, required, problems);
+  return { table, problems: problems.toArray() };
+};
+
+describe("readCsvTable(bytes, required, problems)", () => {
+  it("gives each record the physical line where it starts, across quoted line breaks and blank lines", () => {
+    const { table, problems } = read('year,note\n1700,"two\nlines"\n\n1701,plain\r\n1702,"a ""quoted"", word"\n');
+    expect(problems).toEqual([]);
+    expect(table?.rows.map((r) => [r.line, r.field("year"), r.field("note")])).toEqual([
+      [2, "1700", "two\nlines"],
+      [5, "1701", "plain"],
+      [6, "1702", 'a "quoted", word'],
+    ]);
+  });
+
+  it("strips a BOM and trims column names and fields", () => {
+    const { table } = read("\uFEFF year , ENSO \n 1700 , 0.5 \n");
+    expect(table?.columns).toEqual(["year", "ENSO"]);
+    expect(table?.rows[0]?.field("ENSO")).toBe("0.5");
+  });
+
+  it("reports a row with the wrong number of fields and keeps the others", () => {
+    const { table, problems } = read("year,a\n1700,1\n1701\n1702,3,4\n1703,5\n");
+    expect(problems).toEqual([
+      { file: "f.csv", line: 3, message: "expected 2 fields as in the header, found 1" },
+      { file: "f.csv", line: 4, message: "expected 2 fields as in the header, found 3" },
+    ]);
+    expect(table?.rows.map((r) => r.line)).toEqual([2, 5]);
+  });
+
+  it("reports the first quoting error with its line (later ones are echoes of it)", () => {
+    expect(read('year,a\n1700,"bad"x\n1701,2\n1702,"open\n').problems).toEqual([
+      { file: "f.csv", line: 2, message: "a closing quote must be followed by a comma or the end of the line" },
+    ]);
+    expect(read('year,a\n1700,1\n1701,"open\n1702,3\n').problems).toEqual([
+      { file: "f.csv", line: 4, message: "a quoted field is not closed before the end of the file" },
+    ]);
+  });
+
+  it("reports a comment line, a header without data, a repeated or unnamed column", () => {
+    expect(read("year\n# note\n1700\n").problems).toEqual([{ file: "f.csv", line: 2, message: 'comment lines are not allowed (found "# note")' }]);
+    expect(read("year,a\n").problems).toEqual([{ file: "f.csv", line: null, message: "the file has a header but no data rows" }]);
+    expect(read("year,a,a\n1,2,3\n").problems).toEqual([{ file: "f.csv", line: 1, message: 'column "a" appears twice in the header' }]);
+    expect(read("year,,b\n1,2,3\n").problems).toEqual([{ file: "f.csv", line: 1, message: "column 2 of the header has no name" }]);
+  });
+
+  it("reports an empty file, a BOM-only file, NUL bytes and invalid UTF-8 with the line", () => {
+    expect(read("").problems).toEqual([{ file: "f.csv", line: null, message: "the file is empty" }]);
+    expect(read("\uFEFF\n\n").problems).toEqual([{ file: "f.csv", line: null, message: "the file is empty" }]);
+    expect(read(Buffer.from([0x79, 0x0a, 0x31, 0x0a, 0x00])).problems).toEqual([{ file: "f.csv", line: 3, message: "the file is not text (found a NUL byte)" }]);
+    expect(read(Buffer.from([0x79, 0x0a, 0x31, 0xc3, 0x28, 0x0a])).problems).toEqual([
+      { file: "f.csv", line: 2, message: "the file is not UTF-8 text (found an invalid byte sequence)" },
+    ]);
+  });
+});

@@ -1,0 +1,108 @@
+import { mkdtempSync, rmSync, writeFileSync, copyFileSync, readFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import fc from "fast-check";
+import { afterAll, describe, expect, it } from "vitest";
+import { readActivityCsv, readEventsCsv, readModernCsv, readSitesCsv } from "../../src/workspace/fireRecordCsv.js";
+import { readIndexCsv } from "../../src/workspace/indexCsv.js";
+import { InputError, ProblemList } from "../../src/workspace/InputError.js";
+import { loadWorkspace } from "../../src/workspace/loadWorkspace.js";
+import type { IndexSettings } from "../../src/workspace/types.js";
+
+const valid = path.resolve("test/fixtures/regions/valid");
+const SITES = readFileSync(path.join(valid, "fire-sites.csv"), "utf8");
+const INDICES = readFileSync(path.join(valid, "indices.csv"), "utf8");
+const NAO: IndexSettings = { name: "NAO", file: "n.csv", column: "NAO", months: "Dec-Mar", phases: { kind: "terciles", labels: ["a", "b", "c"] } };
+const ENSO: IndexSettings = { name: "ENSO", file: "i.csv", column: "ENSO", months: null, phases: { kind: "terciles", labels: ["a", "b", "c"] } };
+
+/** A text mutation: delete, duplicate or alter one character, or swap two lines. */
+const mutation = fc.oneof(
+  fc.record({ kind: fc.constant("delete" as const), at: fc.nat() }),
+  fc.record({ kind: fc.constant("duplicate" as const), at: fc.nat() }),
+  fc.record({ kind: fc.constant("alter" as const), at: fc.nat(), to: fc.constantFrom(",", '"', "\n", "\r", "#", "-", "x", "", "9", ".", " ", "\u0000", "é") }),
+  fc.record({ kind: fc.constant("swap" as const), at: fc.nat(), with: fc.nat() }),
+);
+
+function mutate(text: string, mutations: readonly fc.RecordValue<unknown>[]): string {
+  let out = text;
+  for (const m of mutations as { kind: string; at: number; to?: string; with?: number }[]) {
+    if (out.length === 0) break;
+    const at = m.at % out.length;
+    if (m.kind === "delete") out = out.slice(0, at) + out.slice(at + 1);
+    else if (m.kind === "duplicate") out = out.slice(0, at + 1) + out.slice(at);
+    else if (m.kind === "alter") out = out.slice(0, at) + (m.to ?? "") + out.slice(at + 1);
+    else {
+      const lines = out.split("\n");
+      const i = at % lines.length;
+      const j = (m.with ?? 0) % lines.length;
+      [lines[i], lines[j]] = [lines[j] as string, lines[i] as string];
+      out = lines.join("\n");
+    }
+  }
+  return out;
+}
+
+/** Runs every file reader on the bytes; fails when anything but problems comes out. */
+function readAll(bytes: Uint8Array): void {
+  const readers: ((problems: ProblemList) => unknown)[] = [
+    (p) => readSitesCsv(bytes, p),
+    (p) => readEventsCsv(bytes, p, "f.csv"),
+    (p) => readActivityCsv(bytes, p),
+    (p) => readModernCsv(bytes, p),
+    (p) => readIndexCsv(bytes, [ENSO], p, "f.csv"),
+    (p) => readIndexCsv(bytes, [NAO], p, "f.csv"),
+  ];
+  for (const reader of readers) {
+    const problems = new ProblemList("f.csv");
+    reader(problems);
+    for (const problem of problems.toArray()) {
+      expect(problem.file).toBe("f.csv");
+      expect(problem.line === null || (Number.isInteger(problem.line) && problem.line >= 1)).toBe(true);
+      expect(problem.message.length).toBeGreaterThan(0);
+    }
+  }
+}
+
+describe("CSV readers never crash (fast-check)", () => {
+  it("random bytes give problems with a file and a line (or null), never another exception", () => {
+    fc.assert(fc.property(fc.uint8Array({ maxLength: 300 }), (bytes) => readAll(bytes)), { numRuns: 300, seed: 20270310 });
+  });
+
+  it("random mutations of a valid fire-sites.csv and indices.csv give problems, never another exception", () => {
+    fc.assert(
+      fc.property(fc.constantFrom(SITES, INDICES), fc.array(mutation, { minLength: 1, maxLength: 4 }), (text, mutations) =>
+        readAll(Buffer.from(mutate(text, mutations), "utf8")),
+      ),
+      { numRuns: 400, seed: 42 },
+    );
+  });
+});
+
+describe("loadWorkspace(root) never crashes on a mutated region (fast-check)", () => {
+  const folders: string[] = [];
+  afterAll(() => {
+    for (const folder of folders) rmSync(folder, { recursive: true, force: true });
+  });
+
+  it("a mutated fire-events.csv or region.json either loads or throws InputError whose problems all name a file", async () => {
+    const names = ["region.json", "fire-sites.csv", "fire-events.csv", "indices.csv", "nao-monthly.csv"];
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom("region.json", "fire-events.csv", "fire-sites.csv"), fc.array(mutation, { minLength: 1, maxLength: 3 }), async (target, mutations) => {
+        const folder = mkdtempSync(path.join(tmpdir(), "firephase-mutation-"));
+        folders.push(folder);
+        for (const name of names) copyFileSync(path.join(valid, name), path.join(folder, name));
+        writeFileSync(path.join(folder, target), mutate(readFileSync(path.join(valid, target), "utf8"), mutations));
+        try {
+          await loadWorkspace(folder);
+        } catch (error) {
+          expect(error).toBeInstanceOf(InputError);
+          for (const problem of (error as InputError).problems) {
+            expect(problem.file.startsWith(folder)).toBe(true);
+            expect(problem.line === null || problem.line >= 1).toBe(true);
+          }
+        }
+      }),
+      { numRuns: 60, seed: 7 },
+    );
+  });
+});
