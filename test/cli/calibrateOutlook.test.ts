@@ -1,0 +1,67 @@
+import { spawnSync } from "node:child_process";
+import { fileURLToPath } from "node:url";
+import { describe, expect, it } from "vitest";
+
+// Runs the built CLI (npm test builds first) on the invented demo region.
+const root = fileURLToPath(new URL("../..", import.meta.url));
+function firephase(...args: string[]) {
+  const result = spawnSync(process.execPath, ["dist/cli/main.js", ...args], { cwd: root, encoding: "utf8" });
+  return { code: result.status, stdout: result.stdout, stderr: result.stderr };
+}
+
+describe("firephase calibrate demo-region", () => {
+  it("shows the planted warm-ENSO link with intervals", () => {
+    const run = firephase("calibrate", "demo-region");
+    expect(run.code).toBe(0);
+    expect(run.stdout).toMatch(/ENSO — 291 years/);
+    expect(run.stdout).toMatch(/warm\s+86\s+24\s+28%\s+20–38%/);
+    expect(run.stderr).toBe("");
+  });
+
+  it("prints byte-identical JSON on two runs with the same seed", () => {
+    const first = firephase("calibrate", "demo-region", "--json");
+    const second = firephase("calibrate", "demo-region", "--json");
+    expect(first.code).toBe(0);
+    expect(first.stdout).toBe(second.stdout);
+    const json = JSON.parse(first.stdout);
+    expect(json.schema).toBe("firephase.calibration/1");
+    expect(json.period).toEqual({ first: 1700, last: 1990, years: 291 });
+    expect(json.indices.ENSO.sea.draws).toBe(10000);
+  });
+});
+
+describe("firephase outlook demo-region", () => {
+  it("states the odds in plain words first, then the skill", () => {
+    const run = firephase("outlook", "demo-region");
+    expect(run.code).toBe(0);
+    const lines = run.stdout.split("\n");
+    expect(lines[2]).toMatch(/^About \d+ in 10 chance of a high-fire year; in an average year about 1 in 10\.$/);
+    expect(lines[3]).toMatch(/skill/i);
+    expect(run.stdout).toMatch(/Analog years/);
+    expect(run.stdout).toMatch(/does not replace official agency outlooks/);
+  });
+
+  it("takes --values over region.json and keeps the promised JSON", () => {
+    const run = firephase("outlook", "demo-region", "--values", "ENSO=-1.2", "--issued", "2027-02-01", "--season", "2027", "--json");
+    expect(run.code).toBe(0);
+    const json = JSON.parse(run.stdout);
+    expect(json.schema).toBe("firephase.outlook/1");
+    expect(json.issued).toBe("2027-02-01");
+    expect(json.phases.ENSO).toBe("cold");
+    expect(json.fireYear.estimate).toBeLessThan(json.baseRate.estimate);
+    expect(json.hindcast.years).toBe(291);
+  });
+
+  it.each([
+    [["--values", "FOO=1"], /unknown index "FOO"; this region's indices are ENSO, NAO, AMO, PDO/],
+    [["--values", "ENSO=warm"], /ENSO must be a number, found "warm"/],
+    [["--issued", "10 March"], /--issued: expected a date as YYYY-MM-DD/],
+    [["--season", "next"], /--season: expected a year/],
+  ])("exits 2 with a clear message for bad usage %j", (args, message) => {
+    const run = firephase("outlook", "demo-region", ...args);
+    expect(run.code).toBe(2);
+    expect(run.stderr).toMatch(message);
+    expect(run.stderr).not.toMatch(/\n\s+at /);
+    expect(run.stdout).toBe("");
+  });
+});
