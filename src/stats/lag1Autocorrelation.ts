@@ -30,8 +30,13 @@ export function lag1Autocorrelation(x: readonly number[]): number {
   });
   const length = x.length;
   if (length < 3) return Number.NaN;
+  // All ties are detected exactly: a rounded mean of equal values could otherwise leave spurious deviations.
+  if (x.every((value) => value === x[0])) return Number.NaN;
   const mean = x.reduce((sum, value) => sum + value, 0) / length;
-  const deviations = x.map((value) => value - mean);
+  const rawDeviations = x.map((value) => value - mean);
+  // Divide by the largest absolute deviation so sums of squares cannot underflow or overflow (r₁ is scale-free).
+  const largest = rawDeviations.reduce((maximum, deviation) => Math.max(maximum, Math.abs(deviation)), 0);
+  const deviations = rawDeviations.map((deviation) => deviation / largest);
   let sumOfSquares = 0;
   let laggedProducts = 0;
   for (let index = 0; index < length; index += 1) {
@@ -39,6 +44,5 @@ export function lag1Autocorrelation(x: readonly number[]): number {
     sumOfSquares += deviation * deviation;
     if (index + 1 < length) laggedProducts += deviation * (deviations[index + 1] ?? 0);
   }
-  if (sumOfSquares === 0) return Number.NaN;
   return laggedProducts / sumOfSquares;
 }

@@ -5,7 +5,8 @@ import { StatsInputError } from "./StatsInputError.js";
  *
  * mean = Σxᵢ/n; sd = √(Σ(xᵢ − mean)²/(n − 1)). The squared deviations are summed in a second pass, after the
  * mean is known, with the compensating term Σ(xᵢ − mean) subtracted (the corrected two-pass algorithm), so data
- * with a large common offset keep full precision.
+ * with a large common offset keep full precision; deviations are divided by the largest of them before squaring
+ * so the sum of squares cannot underflow or overflow. Identical values are detected exactly (sd = 0).
  *
  * @param values - the sample, finite numbers.
  * @returns `{ mean, sd }` with sd ≥ 0. Degenerate cases: for an empty sample both are NaN; for a single value
@@ -29,16 +30,21 @@ export function meanAndStandardDeviation(values: readonly number[]): { mean: num
   });
   const count = values.length;
   if (count === 0) return { mean: Number.NaN, sd: Number.NaN };
+  const first = values[0] ?? Number.NaN;
+  // All ties are detected exactly, so equal values give their own value as mean and an SD of exactly 0.
+  if (values.every((value) => value === first)) return { mean: first, sd: count < 2 ? Number.NaN : 0 };
   const mean = values.reduce((sum, value) => sum + value, 0) / count;
-  if (count < 2) return { mean, sd: Number.NaN };
+  const deviations = values.map((value) => value - mean);
+  // Divide by the largest absolute deviation so the sum of squares cannot underflow or overflow.
+  const scale = deviations.reduce((maximum, deviation) => Math.max(maximum, Math.abs(deviation)), 0);
   let sumOfSquares = 0;
   let sumOfDeviations = 0;
-  for (const value of values) {
-    const deviation = value - mean;
-    sumOfSquares += deviation * deviation;
-    sumOfDeviations += deviation;
+  for (const deviation of deviations) {
+    const scaled = deviation / scale;
+    sumOfSquares += scaled * scaled;
+    sumOfDeviations += scaled;
   }
   // Corrected two-pass: subtract the rounding error of the mean, (Σ deviations)²/n.
-  const variance = Math.max(0, (sumOfSquares - (sumOfDeviations * sumOfDeviations) / count) / (count - 1));
-  return { mean, sd: Math.sqrt(variance) };
+  const scaledVariance = Math.max(0, (sumOfSquares - (sumOfDeviations * sumOfDeviations) / count) / (count - 1));
+  return { mean, sd: scale * Math.sqrt(scaledVariance) };
 }

@@ -4,7 +4,8 @@ import { StatsInputError } from "./StatsInputError.js";
  * Pearson product-moment correlation coefficient of two paired samples.
  *
  * r = Σ(xᵢ − x̄)(yᵢ − ȳ) / √(Σ(xᵢ − x̄)² · Σ(yᵢ − ȳ)²), computed from centred values (two passes) so large offsets
- * such as calendar years do not cost precision; the result is clamped to [−1, 1] against rounding.
+ * such as calendar years do not cost precision, with each sample's deviations divided by their largest absolute
+ * value so sums of squares cannot underflow or overflow; the result is clamped to [−1, 1] against rounding.
  *
  * @param x - first sample, finite numbers.
  * @param y - second sample, finite numbers, the same length as x (pairs are (x[i], y[i])).
@@ -36,19 +37,33 @@ export function pearsonCorrelation(x: readonly number[], y: readonly number[]): 
   );
   const pairCount = x.length;
   if (pairCount < 2) return Number.NaN;
-  const meanX = x.reduce((sum, value) => sum + value, 0) / pairCount;
-  const meanY = y.reduce((sum, value) => sum + value, 0) / pairCount;
+  const deviationsX = scaledDeviations(x);
+  const deviationsY = scaledDeviations(y);
+  if (deviationsX === undefined || deviationsY === undefined) return Number.NaN;
   let crossProducts = 0;
   let squaresX = 0;
   let squaresY = 0;
   for (let index = 0; index < pairCount; index += 1) {
-    const deviationX = (x[index] ?? 0) - meanX;
-    const deviationY = (y[index] ?? 0) - meanY;
+    const deviationX = deviationsX[index] ?? 0;
+    const deviationY = deviationsY[index] ?? 0;
     crossProducts += deviationX * deviationY;
     squaresX += deviationX * deviationX;
     squaresY += deviationY * deviationY;
   }
-  if (squaresX === 0 || squaresY === 0) return Number.NaN;
   const correlation = crossProducts / Math.sqrt(squaresX * squaresY);
   return Math.max(-1, Math.min(1, correlation));
+}
+
+/**
+ * Deviations from the mean divided by the largest absolute deviation, so that squares neither underflow
+ * (values near 1e-160) nor overflow (near 1e160); r is unchanged by this rescaling. Undefined when all
+ * values are equal.
+ */
+function scaledDeviations(values: readonly number[]): number[] | undefined {
+  // All ties are detected exactly: a rounded mean of equal values could otherwise leave spurious deviations.
+  if (values.every((value) => value === values[0])) return undefined;
+  const mean = values.reduce((sum, value) => sum + value, 0) / values.length;
+  const deviations = values.map((value) => value - mean);
+  const largest = deviations.reduce((maximum, deviation) => Math.max(maximum, Math.abs(deviation)), 0);
+  return deviations.map((deviation) => deviation / largest);
 }

@@ -48,6 +48,15 @@ describe("meanAndStandardDeviation(values)", () => {
     expect(meanAndStandardDeviation([2.5, 2.5, 2.5, 2.5])).toEqual({ mean: 2.5, sd: 0 });
   });
 
+  it("all ties are exact: [0.1, 0.1, 0.1] → mean 0.1, sd 0 (no rounding noise)", () => {
+    expect(meanAndStandardDeviation([0.1, 0.1, 0.1])).toEqual({ mean: 0.1, sd: 0 });
+  });
+
+  it("neither underflows nor overflows: [0, 1e-170, 2e-170] → sd 1e-170; [1e200, 2e200, 3e200] → sd 1e200", () => {
+    expect(meanAndStandardDeviation([0, 1e-170, 2e-170]).sd / 1e-170).toBeCloseTo(1, 12);
+    expect(meanAndStandardDeviation([1e200, 2e200, 3e200]).sd / 1e200).toBeCloseTo(1, 12);
+  });
+
   it("keeps precision with a large offset: [1e9 + 1, 1e9 + 2, 1e9 + 3] → sd 1", () => {
     expect(meanAndStandardDeviation([1e9 + 1, 1e9 + 2, 1e9 + 3]).sd).toBeCloseTo(1, 12);
   });
