@@ -47,7 +47,7 @@ export function formatCalibration(calibration: Calibration): string {
   out.push(
     `Activity categories (terciles): below normal ≤ ${fixed(categories.lowerCut, 3)} (${formatPercent(shares.below)} of years), near normal (${formatPercent(shares.near)}), above normal > ${fixed(categories.upperCut, 3)} (${formatPercent(shares.above)})`,
   );
-  for (const index of calibration.indices) out.push("", ...formatIndex(index));
+  for (const index of calibration.indices) out.push("", ...formatIndex(index, fireYears.years.length));
   if (calibration.warnings.length > 0) {
     out.push("", "Warnings:");
     for (const warning of calibration.warnings) out.push(`  - ${warning.message}`);
@@ -56,7 +56,7 @@ export function formatCalibration(calibration: Calibration): string {
   return `${out.join("\n")}\n`;
 }
 
-function formatIndex(index: IndexCalibration): string[] {
+function formatIndex(index: IndexCalibration, fireYearCount: number): string[] {
   const rule =
     index.definition.rule === "cuts"
       ? `fixed cuts ${index.definition.cuts.join(" / ")}`
@@ -89,7 +89,9 @@ function formatIndex(index: IndexCalibration): string[] {
         : [];
     });
     lines.push(
-      `  Superposed epoch analysis (${sea.eventYears.length} fire years, ${sea.draws} random draws): ` +
+      `  Superposed epoch analysis (${sea.eventYears.length} of ${fireYearCount} fire years` +
+        (sea.eventYears.length < fireYearCount ? ", the others lack index values somewhere in their window" : "") +
+        `; ${sea.draws} random draws): ` +
         (significant.length === 0 ? "no lag departs from chance at p < 0.05" : `departures at p < 0.05 — ${significant.join("; ")}`),
     );
   }
