@@ -8,7 +8,9 @@ import type { ProportionInterval } from "./proportionInterval.js";
  * The interval takes the equal-tailed quantiles of the Jeffreys-prior posterior Beta(x + ½, n − x + ½):
  * lower = B⁻¹(α/2; x + ½, n − x + ½) and upper = B⁻¹(1 − α/2; x + ½, n − x + ½), with α = 1 − confidence.
  * Following Brown, Cai & DasGupta (2001) §4.1.2 the lower limit is set to 0 when x = 0 and the upper limit
- * to 1 when x = n, so the interval always covers the sample proportion.
+ * to 1 when x = n, so the interval includes the sample proportion 0 or 1 at those ends. (At the usual levels,
+ * confidence ≥ 0.5, it contains x/n for every x; an equal-tailed posterior interval at a very low level such as
+ * 0.01 can miss it, because the posterior median is pulled towards ½.)
  *
  * @param successes - number of successes x; an integer with 0 ≤ x ≤ trials.
  * @param trials - number of trials n; a non-negative integer.

@@ -55,6 +55,12 @@ describe("jeffreysInterval(successes, trials, confidence = 0.95)", () => {
     expect(() => jeffreysInterval(successes, trials, confidence)).toThrow(StatsInputError);
   });
 
+  it("jeffreysInterval(1, 5, 0.01) lies above 1/5: at a very low level the posterior median, pulled towards ½, leads", () => {
+    const interval = jeffreysInterval(1, 5, 0.01);
+    expect(interval.lower).toBeGreaterThan(0.2);
+    expect(interval.lower).toBeCloseTo(jStat.beta.inv(0.495, 1.5, 4.5), 8);
+  });
+
   it("property: for any 0 ≤ x ≤ n, 0 ≤ lower ≤ x/n ≤ upper ≤ 1", () => {
     fc.assert(
       fc.property(
