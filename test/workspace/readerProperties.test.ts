@@ -23,9 +23,11 @@ const mutation = fc.oneof(
   fc.record({ kind: fc.constant("swap" as const), at: fc.nat(), with: fc.nat() }),
 );
 
-function mutate(text: string, mutations: readonly fc.RecordValue<unknown>[]): string {
+type Mutation = { kind: string; at: number; to?: string; with?: number };
+
+function mutate(text: string, mutations: readonly Mutation[]): string {
   let out = text;
-  for (const m of mutations as { kind: string; at: number; to?: string; with?: number }[]) {
+  for (const m of mutations) {
     if (out.length === 0) break;
     const at = m.at % out.length;
     if (m.kind === "delete") out = out.slice(0, at) + out.slice(at + 1);

@@ -1,3 +1,5 @@
+import fc from "fast-check";
+import jStat from "jstat";
 import { describe, expect, it } from "vitest";
 import { parseMonthWindow, seasonalValues, seasonMonths, seasonYearOf, type MonthWindow } from "../../src/climate/seasonalValues.js";
 
@@ -83,5 +85,22 @@ describe("seasonalValues(monthly, window)", () => {
         window("Dec-Mar"),
       ),
     ).toThrow(RangeError);
+  });
+
+  it("each complete season's value equals jStat.mean of its months (fast-check, independent library)", () => {
+    fc.assert(
+      fc.property(fc.array(fc.double({ min: -5, max: 5, noNaN: true }), { minLength: 24, maxLength: 24 }), fc.constantFrom("Dec-Mar", "Jun-Aug", "Oct-Sep"), (values, text) => {
+        const monthly = values.map((value, i) => ({ year: 2000 + Math.floor(i / 12), month: (i % 12) + 1, value }));
+        const w = window(text);
+        const result = seasonalValues(monthly, w);
+        result.years.forEach((year, i) => {
+          const value = result.values[i];
+          if (value === null || value === undefined) return;
+          const months = seasonMonths(w, year).map((m) => values[(m.year - 2000) * 12 + m.month - 1] as number);
+          expect(value).toBeCloseTo(jStat.mean(months), 12);
+        });
+      }),
+      { numRuns: 200, seed: 3 },
+    );
   });
 });
