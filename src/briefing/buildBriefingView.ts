@@ -188,6 +188,12 @@ export interface IndexView {
   readonly stability: { readonly chart: TrustedMarkup; readonly caption: string };
 }
 
+/** "p = 0.03" or "p < 0.001" (also for q). */
+function pEquals(name: string, p: number): string {
+  const text = formatPValue(p);
+  return text.startsWith("<") ? `${name} < ${text.slice(1)}` : `${name} = ${text}`;
+}
+
 function missing(reason: string | undefined): string {
   return reason === undefined || reason === "" ? NOT_ENOUGH_DATA : `${NOT_ENOUGH_DATA} (${reason})`;
 }
@@ -284,8 +290,8 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
     contingency.chiSquare === null || contingency.pValue === null
       ? `Chi-square test: ${missing(contingency.reason)}.`
       : `Chi-square test of fire years by phase: X² = ${formatDecimal(contingency.chiSquare, 2)}, df = ${contingency.df}, ` +
-        `p = ${formatPValue(contingency.pValue)}` +
-        (contingency.qValue === null ? "" : `, false discovery rate q = ${formatPValue(contingency.qValue)} across all indices`) +
+        pEquals("p", contingency.pValue) +
+        (contingency.qValue === null ? "" : `, false discovery rate ${pEquals("q", contingency.qValue)} across all indices`) +
         "." +
         (contingency.smallExpectedShare > 0
           ? ` ${Math.round(contingency.smallExpectedShare * 100)}% of expected counts are below 5, so read the chi-square p-value with care (Fisher exact p-values per phase are exact).`
@@ -303,8 +309,8 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
       const q = sea.qValue[i];
       outside.push(
         `lag ${signed(lag, 0)} (${signed(mean, 2)}` +
-          (p === null || p === undefined ? "" : `, p = ${formatPValue(p)}`) +
-          (q === null || q === undefined ? "" : `, q = ${formatPValue(q)}`) +
+          (p === null || p === undefined ? "" : `, ${pEquals("p", p)}`) +
+          (q === null || q === undefined ? "" : `, ${pEquals("q", q)}`) +
           ")",
       );
     }

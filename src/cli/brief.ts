@@ -49,6 +49,12 @@ export interface BriefResult {
 /** SAFETY.md of the package (two folders up from src/cli and dist/cli). */
 export const PACKAGE_SAFETY_PATH = fileURLToPath(new URL("../../SAFETY.md", import.meta.url));
 
+/** Page count of a PDF: the largest /Count of its page-tree nodes (the root's); null if none is found. */
+function pdfPageCount(pdf: Uint8Array): number | null {
+  const counts = [...Buffer.from(pdf).toString("latin1").matchAll(/\/Count\s+(\d+)/g)].map((match) => Number(match[1]));
+  return counts.length === 0 ? null : Math.max(...counts);
+}
+
 function paperOption(value: string | undefined): PaperSize {
   if (value === undefined) return "a4";
   const lower = value.toLowerCase();
@@ -108,8 +114,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     const files: FileToWrite[] = [{ path: pdfPath, data: printed.pdf }];
     if (htmlPath !== null) files.push({ path: htmlPath, data: html });
     await writeFilesAtomic(files);
-    const pageCount = /\/Type\s*\/Pages\b[^>]*?\/Count\s+(\d+)/.exec(Buffer.from(printed.pdf).toString("latin1"));
-    return { pdfPath, htmlPath, pages: pageCount?.[1] === undefined ? null : Number(pageCount[1]) };
+    return { pdfPath, htmlPath, pages: pdfPageCount(printed.pdf) };
   } finally {
     await printerPromise.then((printer) => printer.close()).catch(() => undefined);
   }

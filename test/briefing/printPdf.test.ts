@@ -1,0 +1,143 @@
+import { createServer, type Server } from "node:http";
+import type { AddressInfo } from "node:net";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { buildBriefingView } from "../../src/briefing/buildBriefingView.js";
+import { embeddedFontCss } from "../../src/briefing/embeddedFonts.js";
+import { escapeHtml } from "../../src/briefing/escapeHtml.js";
+import { launchPrinter, type PdfPrinter } from "../../src/briefing/printPdf.js";
+import { renderBriefingHtml } from "../../src/briefing/renderBriefingHtml.js";
+import { formatPercent } from "../../src/outlook/describeChance.js";
+import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
+import { flatText, pdfPageTexts } from "./pdfText.js";
+import { SAMPLE_SAFETY_MARKDOWN, sampleBriefingInputs } from "./sampleBriefingInputs.js";
+
+// One browser for the whole file (the machine has two cores).
+let printer: PdfPrinter;
+let server: Server;
+let serverHits = 0;
+let serverUrl = "";
+
+const footer = { footerHtml: escapeHtml("Issued 10 March 2027"), footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]) };
+
+beforeAll(async () => {
+  printer = await launchPrinter({});
+  server = createServer((_request, response) => {
+    serverHits += 1;
+    response.end("x");
+  });
+  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
+  serverUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+});
+
+afterAll(async () => {
+  await printer?.close();
+  await new Promise((resolve) => server?.close(resolve));
+});
+
+async function printSample(options: Parameters<typeof sampleBriefingInputs>[0], paper: "a4" | "letter" = "a4") {
+  const inputs = sampleBriefingInputs(options);
+  const view = buildBriefingView({ ...inputs, toolVersion: "9.8.7", safetyMarkdown: SAFETY, paper });
+  const html = renderBriefingHtml(view);
+  const printed = await printer.print(html, { paper, ...footer });
+  return { inputs, view, html, printed, pages: await pdfPageTexts(printed.pdf) };
+}
+
+const SAFETY = `${SAMPLE_SAFETY_MARKDOWN}\n\nAlways defer to the official outlook of your agency.`;
+
+describe("PdfPrinter.print(briefing html)", () => {
+  it("loads no network resource and runs no script even when the HTML asks for them", async () => {
+    const before = serverHits;
+    const html =
+      `<!DOCTYPE html><html><head><link rel="stylesheet" href="${serverUrl}/style.css"></head><body>` +
+      `<p id="t">static text</p><img src="${serverUrl}/x.png"><img src="data:image/gif;base64,R0lGODlhAQABAAAAACw=">` +
+      `<script>document.getElementById("t").textContent = "script ran";</script></body></html>`;
+    const printed = await printer.print(html, { paper: "a4", ...footer });
+    const text = flatText(await pdfPageTexts(printed.pdf));
+    expect(serverHits - before).toBe(0);
+    // This runs first on the fresh page: once a briefing (with its Content-Security-Policy meta)
+    // has been set, document.open() keeps that policy and the browser refuses such requests before
+    // interception sees them; the server count above covers both layers.
+    expect(printed.blockedRequests).toEqual(expect.arrayContaining([`${serverUrl}/style.css`, `${serverUrl}/x.png`]));
+    expect(printed.blockedRequests.some((url) => url.startsWith("data:"))).toBe(false);
+    expect(text).toContain("static text");
+    expect(text).not.toContain("script ran");
+  });
+
+  it("prints region, issue date, headline probability, cautions, citations and page x of y", async () => {
+    const { inputs, pages } = await printSample({});
+    const text = flatText(pages);
+    const first = (pages[0] ?? "").replace(/\s+/g, " ");
+    expect(first).toContain("Larkspur Hollow District (invented)");
+    expect(first).toContain("Issued 10 March 2027");
+    expect(first).toContain("for the 2027 fire season");
+    // Same rule as the JSON: the outlook JSON's fireYear.estimate, formatted by formatPercent.
+    const json = toOutlookJson(inputs.outlook) as { fireYear: { estimate: number } };
+    expect(first).toContain(`This season: ${formatPercent(json.fireYear.estimate)}`);
+    expect(formatPercent(json.fireYear.estimate)).toBe("20%"); // 17 of 83 in the fixture
+    expect(first).toContain("About 2 in 10 chance of a high-fire year; in an average year about 1 in 10.");
+    expect(first).toContain("Official agency seasonal outlooks and daily fire-danger forecasts come first");
+    expect(first).toContain(`page 1 of ${pages.length}`);
+    for (const citation of [
+      "Wilson E.B. (1927)",
+      "Brown L.D., Cai T.T., DasGupta A. (2001)",
+      "Woolf B. (1955)",
+      "Haurwitz M.W., Brier G.W. (1981)",
+      "Prager M.H., Hoenig J.M. (1989)",
+      "Adams J.B., Mann M.E., Ammann C.M. (2003)",
+      "Bretherton C.S.",
+      "Benjamini Y., Hochberg Y. (1995)",
+      "Hyndman R.J., Fan Y. (1996)",
+      "Brier G.W. (1950)",
+      "Epstein E.S. (1969)",
+      "Murphy A.H. (1971)",
+      "Hanley J.A., McNeil B.J. (1982)",
+      "Phipson B., Smyth G.K. (2010)",
+      "Fisher R.A. (1935)",
+      "Agresti A. (2007)",
+    ]) {
+      expect(text).toContain(citation);
+    }
+    expect(text).toContain("Always defer to the official outlook of your agency.");
+    expect(text).toContain("Inline HTML stays text: <b>not bold</b> & code");
+    expect(text).toContain("a0".repeat(32)); // SHA-256 of an input file
+    expect(text).toContain("firephase 9.8.7");
+  });
+
+  it("says on page 1 that a method without skill has none", async () => {
+    const { pages } = await printSample({ noSkill: true });
+    const first = (pages[0] ?? "").replace(/\s+/g, " ");
+    expect(first).toContain("Hindcast: the method showed no skill");
+    expect(first).toContain("Treat these odds as no better than climatology.");
+  });
+
+  it("prints 'not enough data' with the reason for null statistics, on Letter paper", async () => {
+    const { pages, printed } = await printSample({ degenerate: true }, "letter");
+    const text = flatText(pages);
+    expect(text).toContain("not enough data (no past year shares this phase)");
+    expect(text).toContain("not enough data (no fire year has its whole window covered)");
+    expect(text).toContain("not enough data (fewer than 10 hindcast years)");
+    const header = Buffer.from(printed.pdf).toString("latin1");
+    expect(header).toMatch(/\/MediaBox \[0 0 612 792\]/); // US Letter, 8.5 × 11 in at 72 pt/in
+  });
+
+  it("shows a hostile region name as text and runs nothing", async () => {
+    const hostile = `<script>document.title='owned'</script><img src=file:///etc/passwd onerror=alert(1)> & "Ridge"`;
+    const { pages, html, printed } = await printSample({ regionName: hostile, description: "<iframe src=http://127.0.0.1:9/>" });
+    expect(html).not.toContain("<script>document.title");
+    expect(html).not.toContain("<img src=file");
+    const first = (pages[0] ?? "").replace(/\s+/g, " ");
+    expect(first).toContain(hostile);
+    expect(first).toContain("<iframe src=http://127.0.0.1:9/>");
+    expect(printed.blockedRequests).toEqual([]);
+  });
+
+  it("embeds Source Sans 3 and no other font for latin text", async () => {
+    const printed = await printer.print(
+      `<!DOCTYPE html><html><head><style>${embeddedFontCss()} body{font-family:'Source Sans 3'}</style></head><body><p>Plain text − 10%</p><p style="font-weight:600">Semibold</p></body></html>`,
+      { paper: "a4", ...footer },
+    );
+    const names = [...Buffer.from(printed.pdf).toString("latin1").matchAll(/\/BaseFont\s*\/([A-Za-z0-9+\-_]+)/g)].map((match) => match[1] ?? "");
+    expect(names.length).toBeGreaterThan(0);
+    for (const name of names) expect(name).toMatch(/SourceSans3/);
+  });
+});
