@@ -100,9 +100,10 @@ export function activityTimeline(input: Readonly<ActivityTimelineInput>, options
     ...(isDrawable(input.threshold) ? [input.threshold] : []),
   );
   const y = scaleLinear()
-    .domain([0, maxActivity > 0 ? maxActivity : 1])
+    .domain([0, maxActivity > 1e-9 ? maxActivity : 1])
     .range([frame.bottom, frame.top])
-    .nice(5);
+    .nice(5)
+    .clamp(true);
   const maxDepth = Math.max(0, ...years.map((entry) => (isDrawable(entry.sitesRecording) ? entry.sitesRecording : 0)));
   const depth = scaleLinear()
     .domain([0, Math.max(maxDepth, 5)])

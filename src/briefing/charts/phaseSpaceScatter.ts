@@ -13,6 +13,7 @@ import {
   type LegendEntry,
   makeFrame,
   notEnoughData,
+  paddedExtent,
   svgOpen,
   svgText,
 } from "./svgParts.js";
@@ -99,15 +100,8 @@ export function phaseSpaceScatter(input: Readonly<PhaseSpaceScatterInput>, optio
     xs.push(current.x);
     ys.push(current.y);
   }
-  const domainOf = (values: number[]): [number, number] => {
-    if (values.length === 0) return [-1, 1];
-    const low = Math.min(...values);
-    const high = Math.max(...values);
-    const pad = high > low ? (high - low) * 0.04 : 1;
-    return [low - pad, high + pad];
-  };
-  const x = scaleLinear().domain(domainOf(xs)).range([frame.left, frame.right]).nice(8);
-  const y = scaleLinear().domain(domainOf(ys)).range([frame.bottom, frame.top]).nice(6);
+  const x = scaleLinear().domain(paddedExtent(xs, 0.04)).range([frame.left, frame.right]).nice(8);
+  const y = scaleLinear().domain(paddedExtent(ys, 0.04)).range([frame.bottom, frame.top]).nice(6);
 
   let body = axisBottom(x, frame, { title: input.xName, ticks: 8, grid: true });
   body += axisVertical(y, frame, { title: input.yName, ticks: 6, grid: true });

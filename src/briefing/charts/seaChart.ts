@@ -13,6 +13,7 @@ import {
   type LegendEntry,
   makeFrame,
   notEnoughData,
+  paddedExtent,
   svgOpen,
 } from "./svgParts.js";
 
@@ -46,7 +47,7 @@ const MARGINS = { top: 12, right: 16, bottom: 64, left: 64 };
  * with no drawable mean the plot shows "not enough data" over the axes.
  *
  * @param input - index name, lags and the per-lag mean and limits (arrays of equal length;
- *   missing entries count as null).
+ *   missing entries count as null; a non-finite lag is left out with its values).
  * @param options - viewBox width (default 680) and height (default 260).
  * @returns a self-contained `<svg>` string.
  * @throws RangeError when a width or height option is out of range.
@@ -69,7 +70,7 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
     ...MARGINS,
     bottom: MARGINS.bottom + legendExtraHeight(entries, width),
   }));
-  const keys = input.lags.map((lag) => String(lag));
+  const keys = input.lags.filter(isDrawable).map((lag) => String(lag));
   const x = scaleBand<string>().domain(keys).range([frame.left, frame.right]).paddingInner(0.3).paddingOuter(0.15);
   const step = x.step();
 
@@ -81,10 +82,8 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
       if (limits && isDrawable(limits[0]) && isDrawable(limits[1])) values.push(limits[0], limits[1]);
     }
   });
-  const low = Math.min(...values);
-  const high = Math.max(...values);
   const y = scaleLinear()
-    .domain(low === high ? [-1, 1] : [low, high])
+    .domain(paddedExtent(values, 0))
     .range([frame.bottom, frame.top])
     .nice(6);
 

@@ -94,7 +94,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
   const low = middles.length > 0 ? Math.min(...middles) : 0;
   const high = middles.length > 0 ? Math.max(...middles) : 100;
   const x = scaleLinear()
-    .domain(low === high ? [low - 10, high + 10] : [low, high])
+    .domain(high - low < 1 ? [low - 10, high + 10] : [low, high])
     .range([frame.left + 8, frame.right - 8]);
   const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
 

@@ -88,6 +88,29 @@ export function makeFrame(
 }
 
 /**
+ * A scale domain covering the values, widened by `padShare` of their spread on each side; a
+ * spread too small to draw (under a billionth of the values' magnitude, or none) becomes ±1
+ * around the middle, so d3's ticks never meet a degenerate domain.
+ *
+ * @param values - finite numbers (may be empty: gives [−1, 1]).
+ * @param padShare - share of the spread added each side, 0–1.
+ * @returns [low, high] with high > low.
+ * @example
+ * paddedExtent([0, 10], 0.1); // => [-1, 11]
+ */
+export function paddedExtent(values: readonly number[], padShare: number): [number, number] {
+  if (values.length === 0) return [-1, 1];
+  const low = Math.min(...values);
+  const high = Math.max(...values);
+  const spread = high - low;
+  if (!(spread > 1e-9 * Math.max(1, Math.abs(low), Math.abs(high)))) {
+    const middle = (low + high) / 2;
+    return [middle - 1, middle + 1];
+  }
+  return [low - spread * padShare, high + spread * padShare];
+}
+
+/**
  * A coordinate as SVG text, rounded to 0.01 unit.
  *
  * @param value - a finite number.
