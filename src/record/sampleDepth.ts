@@ -46,7 +46,8 @@ export interface SampleDepthSummary {
  * @param activity - a composited record from `compositeFireRecord`
  * @returns the summary; nulls and an empty `byCentury` for an empty record
  * @example
- * summarizeSampleDepth(compositeFireRecord(input, 3)).firstUsableYear; // => 1612 for a record whose third site starts in 1612
+ * // sites A 1700–1710, B 1702–1710, C 1700–1705, D 1704–1710, at least 3 recording
+ * summarizeSampleDepth(compositeFireRecord(fourSites, 3)).firstUsableYear; // => 1702
  */
 export function summarizeSampleDepth(activity: FireActivity): SampleDepthSummary {
   const years = activity.years;
