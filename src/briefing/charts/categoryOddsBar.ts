@@ -24,7 +24,7 @@ export interface CategoryOddsBarInput {
   readonly above: ChartInterval;
 }
 
-const MARGINS = { top: 16, right: 76, bottom: 44, left: 60 };
+const MARGINS = { top: 16, right: 76, bottom: 58, left: 60 };
 const CATEGORIES = [
   { key: "below", label: "Below normal" },
   { key: "near", label: "Near normal" },
@@ -34,8 +34,8 @@ const CATEGORIES = [
 /**
  * Category odds bars: the chance of a below-, near- and above-normal fire year as three bars
  * (blue, grey, amber) with interval whiskers, a dashed reference line at one third (labelled
- * "Equal odds (33%)") and, under each category name, the estimate and its interval in whole
- * percent, e.g. "53% (40–66%)".
+ * "Equal odds (33%)") and, under each category name, the estimate in bold and its interval
+ * below it, in whole percent ("53%", "(40–66%)").
  *
  * The y axis runs 0–100% in 20% steps. A category with a null estimate shows "not enough data"
  * in its place; when all three are null the plot shows "not enough data" over the axes.
@@ -85,16 +85,16 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
         body += `<line${attrs({ x1: middle - 7, x2: middle + 7, y1: end, y2: end, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
       }
     }
-    const interval =
-      isDrawable(value.lower) && isDrawable(value.upper)
-        ? ` (${formatPercent(value.lower).replace("%", "")}\u2013${formatPercent(value.upper)})`
-        : "";
-    body += svgText(middle, frame.bottom + 32, `${formatPercent(value.estimate)}${interval}`, {
+    body += svgText(middle, frame.bottom + 33, formatPercent(value.estimate), {
       "text-anchor": "middle",
       "font-size": 13,
       "font-weight": 700,
       fill: palette.ink,
     });
+    if (isDrawable(value.lower) && isDrawable(value.upper)) {
+      const interval = `(${formatPercent(value.lower).replace("%", "")}\u2013${formatPercent(value.upper)})`;
+      body += svgText(middle, frame.bottom + 48, interval, { "text-anchor": "middle", fill: palette.inkMuted });
+    }
   }
   const third = y(1 / 3);
   body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: third, y2: third, stroke: palette.ink, "stroke-width": 1.2, "stroke-dasharray": "6 4" })}/>`;

@@ -108,6 +108,9 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
 
   let body = axisBottom(x, frame, { title: "Chance of a fire year", ticks: 10, format: ".0%", grid: true });
   body += svgText(LEGEND_INSET, frame.top + 8, `${input.indexName} phase`, {
+    stroke: "#ffffff",
+    "stroke-width": 4,
+    "paint-order": "stroke",
     "font-size": 12,
     "font-weight": 600,
   });

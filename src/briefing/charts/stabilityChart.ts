@@ -98,7 +98,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
     .range([frame.left + 8, frame.right - 8]);
   const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
 
-  let body = axisBottom(x, frame, { title: "Middle year of window", ticks: 8, format: "d", integer: true });
+  let body = axisBottom(x, frame, { title: "Middle year of window", ticks: windows.length > 0 ? 8 : 0, format: "d", integer: true });
   body += axisVertical(y, frame, { title: "Chance of a fire year", ticks: 5, format: ".0%", grid: true });
   if (isDrawable(input.baseRate)) {
     body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(input.baseRate), y2: y(input.baseRate), stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`;

@@ -228,17 +228,29 @@ export interface AxisOptions {
   readonly integer?: boolean;
 }
 
-function tickList(scale: ScaleLinear<number, number>, options: AxisOptions): { value: number; label: string }[] {
-  const count = options.ticks ?? 5;
-  const format = scale.tickFormat(count, options.format);
-  return scale
-    .ticks(count)
-    .filter((value) => !options.integer || Number.isInteger(value))
-    .map((value) => ({ value, label: format(value) }));
+function tickList(
+  scale: ScaleLinear<number, number>,
+  options: AxisOptions,
+  labelRoom?: number,
+): { value: number; label: string }[] {
+  let count = options.ticks ?? 5;
+  for (;;) {
+    const format = scale.tickFormat(count, options.format);
+    const ticks = scale
+      .ticks(count)
+      .filter((value) => !options.integer || Number.isInteger(value))
+      .map((value) => ({ value, label: format(value) }));
+    // On a horizontal axis, fewer ticks until the labels fit side by side.
+    if (labelRoom === undefined || count <= 2) return ticks;
+    const widest = Math.max(0, ...ticks.map((tick) => estimateTextWidth(tick.label)));
+    if (ticks.length * (widest + 10) <= labelRoom) return ticks;
+    count = Math.floor(count / 2);
+  }
 }
 
 /**
- * A bottom axis along the plot's lower edge, from scale.ticks() and scale.tickFormat().
+ * A bottom axis along the plot's lower edge, from scale.ticks() and scale.tickFormat(); the tick
+ * count is halved until the labels fit side by side.
  *
  * @param scale - a d3 linear scale whose range is the plot's x extent.
  * @param frame - the chart frame.
@@ -250,7 +262,7 @@ function tickList(scale: ScaleLinear<number, number>, options: AxisOptions): { v
 export function axisBottom(scale: ScaleLinear<number, number>, frame: Frame, options: AxisOptions): string {
   const colour = options.colour ?? palette.inkMuted;
   let out = `<g class="axis axis-x">`;
-  for (const tick of tickList(scale, options)) {
+  for (const tick of tickList(scale, options, Math.abs(frame.right - frame.left))) {
     const x = scale(tick.value);
     if (options.grid) out += `<line${attrs({ x1: x, x2: x, y1: frame.top, y2: frame.bottom, stroke: palette.grid })}/>`;
     out += `<line${attrs({ x1: x, x2: x, y1: frame.bottom, y2: frame.bottom + 4, stroke: palette.inkMuted })}/>`;

@@ -10,9 +10,9 @@ const input: CategoryOddsBarInput = Object.freeze({
 });
 
 describe("categoryOddsBar", () => {
-  it("categoryOddsBar(input) names the three categories and writes each as 'p% (lo–hi%)'", () => {
+  it("categoryOddsBar(input) names the three categories and writes each as 'p%' over '(lo–hi%)'", () => {
     const text = chartText(checkChartSvg(categoryOddsBar(input)));
-    for (const label of ["Below normal", "Near normal", "Above normal", "18% (10–30%)", "29% (19–41%)", "53% (40–66%)", "Equal odds", "(33%)", "Chance"]) {
+    for (const label of ["Below normal", "Near normal", "Above normal", "18%", "(10–30%)", "29%", "(19–41%)", "53%", "(40–66%)", "Equal odds", "(33%)", "Chance"]) {
       expect(text).toContain(label);
     }
   });
@@ -20,16 +20,16 @@ describe("categoryOddsBar", () => {
   it("bars use the below / near / above colours and their heights are proportional to the chance", () => {
     const document = checkChartSvg(categoryOddsBar(input));
     const bars = [palette.below, palette.near, palette.above].map((colour) => elementsWith(document, "rect", "fill", colour)[0]);
-    // Plot y = 16 … 196 (180 units) on the default 680 × 240 chart.
-    expect(Number(bars[0]?.attributes.height)).toBeCloseTo(0.18 * 180, 1);
-    expect(Number(bars[2]?.attributes.height)).toBeCloseTo(0.53 * 180, 1);
-    expect(Number(bars[2]?.attributes.y) + Number(bars[2]?.attributes.height)).toBeCloseTo(196, 1);
+    // Plot y = 16 … 182 (166 units) on the default 680 × 240 chart.
+    expect(Number(bars[0]?.attributes.height)).toBeCloseTo(0.18 * 166, 1);
+    expect(Number(bars[2]?.attributes.height)).toBeCloseTo(0.53 * 166, 1);
+    expect(Number(bars[2]?.attributes.y) + Number(bars[2]?.attributes.height)).toBeCloseTo(182, 1);
   });
 
-  it("the one-third reference line is dashed at y = 196 − 180 / 3", () => {
+  it("the one-third reference line is dashed at y = 182 − 166 / 3", () => {
     const document = checkChartSvg(categoryOddsBar(input));
     const reference = elementsWith(document, "line", "stroke-dasharray", "6 4")[0];
-    expect(Number(reference?.attributes.y1)).toBeCloseTo(196 - 60, 1);
+    expect(Number(reference?.attributes.y1)).toBeCloseTo(182 - 166 / 3, 1);
   });
 
   it("a null estimate reads 'not enough data' under its category; all null adds the notice over the axes", () => {

@@ -63,6 +63,13 @@ describe("svgParts", () => {
     expect(paddedExtent([0, 5e-324], 0.1)).toEqual([-1, 1]);
   });
 
+  it("axisBottom halves the tick count until the labels fit: 0–100% over 150 units keeps 3 ticks", () => {
+    const frame = makeFrame({ width: 250 }, { width: 680, height: 260 }, { top: 10, right: 50, bottom: 40, left: 50 });
+    const x = scaleLinear().domain([0, 1]).range([frame.left, frame.right]);
+    const document = parseXml(`<svg>${axisBottom(x, frame, { title: "Chance", ticks: 10, format: ".0%" })}</svg>`);
+    expect(document.texts).toEqual(["0%", "50%", "100%", "Chance"]);
+  });
+
   it("legendRows wraps entries wider than the space available", () => {
     const entry = { symbol: "", label: "x".repeat(40) };
     expect(legendRows([entry], 600)).toBe(1);
