@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { DEFAULT_METHODS } from "../../src/workspace/defaults.js";
 import { didYouMean, editDistance } from "../../src/workspace/didYouMean.js";
@@ -153,6 +154,46 @@ describe("locateJson(text)", () => {
   });
   it("throws JsonSyntaxError for deep nesting instead of overflowing the stack", () => {
     expect(() => locateJson("[".repeat(10_000))).toThrow("nested more than 64 levels");
+  });
+});
+
+describe("parseRegionJson and locateJson on arbitrary text (fast-check)", () => {
+  const jsonish = fc.oneof(
+    fc.json(),
+    fc.string({ unit: fc.constantFrom("{", "}", "[", "]", ",", ":", '"', "\\", "0", "1", "-", ".", "e", "t", "n", " ", "\n", "a") }),
+    fc.json().chain((text) => fc.nat({ max: Math.max(0, text.length - 1) }).map((at) => text.slice(0, at) + text.slice(at + 1))),
+  );
+  it("locateJson(text) accepts exactly what JSON.parse accepts", () => {
+    fc.assert(
+      fc.property(jsonish, (text) => {
+        let parses = true;
+        try {
+          JSON.parse(text);
+        } catch {
+          parses = false;
+        }
+        let located = true;
+        try {
+          locateJson(text);
+        } catch {
+          located = false;
+        }
+        expect(located).toBe(parses);
+      }),
+      { numRuns: 2000, seed: 5 },
+    );
+  });
+  it("parseRegionJson(text) returns settings or throws InputError, never another exception", () => {
+    fc.assert(
+      fc.property(jsonish, (text) => {
+        try {
+          parseRegionJson(text, "region.json");
+        } catch (error) {
+          expect(error).toBeInstanceOf(InputError);
+        }
+      }),
+      { numRuns: 1000, seed: 6 },
+    );
   });
 });
 
