@@ -65,3 +65,20 @@ export function embeddedFontCss(
   }
   return rules.join("\n");
 }
+
+/** Characters covered by the latin-ext subset but not by latin (see SUBSETS). */
+const LATIN_EXT_ONLY = /[\u0100-\u0130\u0132-\u0151\u0154-\u02BA\u02BD-\u02C5\u02C7-\u02CC\u02CE-\u02D7\u02DD-\u02FF\u1D00-\u1DBF\u1E00-\u1E9F\u1EF2-\u1EFF\u20A0-\u20AB\u20AD-\u20C4\u2113\u2C60-\u2C7F\uA720-\uA7FF]/;
+
+/**
+ * The font subsets a text needs: always latin; latin-ext too when the text has a character only
+ * that subset covers (e.g. "ł", "ő", "ș"). Leaving latin-ext out when unused keeps the page small.
+ *
+ * @param text - every string the page will print (e.g. the JSON of the view model).
+ * @returns `["latin"]` or `["latin", "latin-ext"]`.
+ * @throws never.
+ * @example
+ * fontSubsetsFor("Łódź"); // => ["latin", "latin-ext"]
+ */
+export function fontSubsetsFor(text: string): ("latin" | "latin-ext")[] {
+  return LATIN_EXT_ONLY.test(text) ? ["latin", "latin-ext"] : ["latin"];
+}

@@ -102,6 +102,17 @@ export class PdfPrinter {
     }
   }
 
+  /**
+   * Open and configure the printing page ahead of time (JavaScript off, request blocking), so
+   * that work overlaps the caller's computation.
+   *
+   * @returns when the page is ready.
+   * @throws Error when the browser fails.
+   */
+  async warmUp(): Promise<void> {
+    await this.#preparedPage();
+  }
+
   async #preparedPage(): Promise<Page> {
     if (this.#page !== null) return this.#page;
     const page = await this.#browser.newPage();

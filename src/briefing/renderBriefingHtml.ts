@@ -6,7 +6,7 @@ import { basename, dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import Handlebars from "handlebars";
 import type { BriefingView } from "./buildBriefingView.js";
-import { embeddedFontCss } from "./embeddedFonts.js";
+import { BRIEFING_FACES, embeddedFontCss, fontSubsetsFor } from "./embeddedFonts.js";
 import { trustCss } from "./trustedMarkup.js";
 
 /** The templates folder shipped with the package (`templates/` beside `src/` and `dist/`). */
@@ -39,13 +39,17 @@ function compileTemplates(folder: string): CompiledBriefing {
  * The briefing's complete style sheet: embedded Source Sans 3 faces, then templates/briefing.css.
  *
  * @param templatesDir - folder holding briefing.css (default {@link TEMPLATES_DIR}).
+ * @param subsets - font subsets to embed (default latin and latin-ext).
  * @returns CSS text with every font inlined as a data URL.
  * @throws Error when the style sheet or font files cannot be read.
  * @example
  * briefingStyleSheet().includes("font-family:'Source Sans 3'"); // => true
  */
-export function briefingStyleSheet(templatesDir: string = TEMPLATES_DIR): string {
-  return `${embeddedFontCss()}\n${readFileSync(join(templatesDir, "briefing.css"), "utf8")}`;
+export function briefingStyleSheet(
+  templatesDir: string = TEMPLATES_DIR,
+  subsets: readonly ("latin" | "latin-ext")[] = ["latin", "latin-ext"],
+): string {
+  return `${embeddedFontCss(BRIEFING_FACES, subsets)}\n${readFileSync(join(templatesDir, "briefing.css"), "utf8")}`;
 }
 
 /**
@@ -65,5 +69,6 @@ export function briefingStyleSheet(templatesDir: string = TEMPLATES_DIR): string
  */
 export function renderBriefingHtml(view: BriefingView, templatesDir: string = TEMPLATES_DIR): string {
   const render = compileTemplates(templatesDir);
-  return render({ view, style: trustCss(briefingStyleSheet(templatesDir)) }).trimStart();
+  const subsets = fontSubsetsFor(JSON.stringify(view));
+  return render({ view, style: trustCss(briefingStyleSheet(templatesDir, subsets)) }).trimStart();
 }

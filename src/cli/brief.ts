@@ -81,7 +81,17 @@ function paperOption(value: string | undefined): PaperSize {
 export async function runBrief(region: string, options: BriefOptions, context: BriefContext): Promise<BriefResult> {
   const paper = paperOption(options.paper);
   // Start the browser now: it launches while the statistics are computed.
-  const printerPromise = findBrowser({ explicit: options.browser, env: context.env }).then((browser) => PdfPrinter.launch(browser));
+  const printerPromise = findBrowser({ explicit: options.browser, env: context.env })
+    .then((browser) => PdfPrinter.launch(browser))
+    .then(async (printer) => {
+      try {
+        await printer.warmUp();
+      } catch (error) {
+        await printer.close();
+        throw error;
+      }
+      return printer;
+    });
   printerPromise.catch(() => undefined); // observed below; never an unhandled rejection
   try {
     const workspace = await loadWorkspace(resolve(context.cwd, region));
