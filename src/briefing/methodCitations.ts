@@ -67,7 +67,7 @@ export const METHOD_CITATIONS: readonly MethodCitation[] = Object.freeze([
   },
   {
     method: "Effective sample size of a correlation",
-    use: "p-values of block correlations between autocorrelated series: N(1 \u2212 r\u2081r\u2082)/(1 + r\u2081r\u2082)",
+    use: "p-values of block correlations between autocorrelated series: N times (1 \u2212 a × b)/(1 + a × b), a and b the lag-1 autocorrelations",
     citation:
       "Bretherton C.S., Widmann M., Dymnikov V.P., Wallace J.M., Blad\u00e9 I. (1999) \u201cThe effective number of spatial degrees of freedom of a time-varying field\u201d, Journal of Climate 12:1990\u20132009.",
   },
