@@ -8,6 +8,7 @@ import type { Outlook } from "../outlook/types.js";
 import { describeChance, formatPercent, formatPercentRange, headline as headlineSentence } from "../outlook/describeChance.js";
 import { compositeFireRecord } from "../record/composite.js";
 import type { Workspace } from "../workspace/types.js";
+import { sep } from "node:path";
 import { activityTimeline } from "./charts/activityTimeline.js";
 import { categoryOddsBar } from "./charts/categoryOddsBar.js";
 import { oddsByPhaseChart } from "./charts/oddsByPhaseChart.js";
@@ -502,9 +503,16 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     };
   }
 
+  // Years under minSitesRecording are drawn without a bar: they are not used, and one or two
+  // recording sites make a misleading 0 or 100%.
   const timelineYears = record.years.map((row) => ({
     year: row.year,
-    activity: calibration.fireYears.measure === "fraction" ? row.fraction : row.sitesBurned,
+    activity:
+      row.sitesRecording < settings.fireYears.minSitesRecording
+        ? null
+        : calibration.fireYears.measure === "fraction"
+          ? row.fraction
+          : row.sitesBurned,
     sitesRecording: row.sitesRecording,
     fireYear: fireYearSet.has(row.year),
   }));
@@ -512,9 +520,11 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
   const warningsSeen = new Set<string>();
   const dataNotes: string[] = [];
   for (const warning of [...workspace.warnings, ...calibration.warnings, ...outlook.warnings]) {
-    if (warningsSeen.has(warning.message)) continue;
-    warningsSeen.add(warning.message);
-    dataNotes.push(warning.message);
+    // Paths in reader warnings are relative to the region folder in the briefing, never a machine's absolute path.
+    const message = warning.message.split(`${workspace.root}${sep}`).join("");
+    if (warningsSeen.has(message)) continue;
+    warningsSeen.add(message);
+    dataNotes.push(message);
   }
 
   const firstSea = calibration.indices[0]?.sea;

@@ -1,3 +1,4 @@
+import { closeSitePairs } from "../record/closeSitePairs.js";
 import { compositeFireRecord } from "../record/composite.js";
 import { benjaminiHochberg } from "../stats/benjaminiHochberg.js";
 import { meanAndStandardDeviation } from "../stats/meanAndStandardDeviation.js";
@@ -49,6 +50,15 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
       code: "thin-years-left-out",
       message: `${thinInPeriod.length} year(s) of ${period.first}–${period.last} have fewer than ${settings.fireYears.minSitesRecording} recording sites and are left out of the calibration`,
     });
+  }
+  if (workspace.fireRecord.kind === "sites") {
+    const limit = settings.methods.independenceKm;
+    for (const pair of closeSitePairs(workspace.fireRecord.sites, limit)) {
+      warnings.push({
+        code: "sites-close",
+        message: `sites ${pair.a} and ${pair.b} are ${pair.distanceKm.toFixed(1)} km apart, closer than ${limit} km: their fire years may not be independent evidence`,
+      });
+    }
   }
   if (n < 50) {
     warnings.push({ code: "short-record", message: `only ${n} calibration years: every estimate is uncertain` });

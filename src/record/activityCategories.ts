@@ -3,7 +3,7 @@ import type { ActivityCategories, ActivityCategory } from "./types.js";
 
 export const TERCILE_QUANTILE_RULE = "Hyndman & Fan (1996) type 7 sample quantiles at 1/3 and 2/3";
 export const TERCILE_TIE_RULE =
-  "below normal: activity ≤ lower tercile; above normal: activity > upper tercile; near normal: the rest. " +
+  "below normal: activity at or below the lower tercile; above normal: activity above the upper tercile; near normal: the rest. " +
   "Equal activity always falls in one category, so with many zero-fire years the realised shares differ from one third.";
 
 /**

@@ -64,7 +64,7 @@ const MARGINS = { top: 30, right: 16, bottom: 80, left: 60 };
  */
 export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, options?: ChartOptions): string {
   const entries: LegendEntry[] = [
-      { symbol: `<circle${attrs({ r: 5, fill: palette.estimate })}/>`, label: "Hindcast bins (area ∝ number n)" },
+      { symbol: `<circle${attrs({ r: 5, fill: palette.estimate })}/>`, label: "Hindcast bins (larger dot: more years)" },
       { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 5, y2: -5, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "Perfect reliability" },
       { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.baseRate, "stroke-width": 1.5, "stroke-dasharray": "2 3" })}/>`, label: "Climatology" },
     ];
