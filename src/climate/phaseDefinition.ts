@@ -15,7 +15,7 @@ export function phaseDefinition(settings: IndexSettings, calibrationValues: read
   if (settings.phases.kind === "cuts") {
     return { index: settings.name, labels: settings.phases.labels, cuts: settings.phases.cuts, rule: "cuts" };
   }
-  const sorted = [...calibrationValues].sort((a, b) => a - b);
+  const sorted = Array.from(Float64Array.from(calibrationValues).sort());
   return {
     index: settings.name,
     labels: settings.phases.labels,

@@ -26,7 +26,7 @@ export function activityCategories(
   years: readonly number[],
   classify: readonly number[] = [],
 ): ActivityCategories {
-  const sorted = years.map((year) => activity.get(year) ?? NaN).sort((a, b) => a - b);
+  const sorted = Array.from(Float64Array.from(years, (year) => activity.get(year) ?? NaN).sort());
   const lowerCut = quantileSorted(sorted, 1 / 3);
   const upperCut = quantileSorted(sorted, 2 / 3);
   const byYear = new Map<number, ActivityCategory>();

@@ -23,8 +23,9 @@ export function selectFireYears(
   top: number,
   measure: "fraction" | "sites",
 ): FireYearSelection {
-  const values = years.map((year) => activityOf(activity, year));
-  const ranked = [...values].sort((a, b) => b - a);
+  const ranked = Float64Array.from(years, (year) => activityOf(activity, year))
+    .sort()
+    .reverse();
   const n = ranked.length;
   const rank = Math.max(1, Math.ceil(top * n));
   const atRank = n === 0 ? undefined : ranked[Math.min(rank, n) - 1];
@@ -53,7 +54,7 @@ function activityOf(activity: ReadonlyMap<number, number>, year: number): number
   return value;
 }
 
-function smallestPositive(sortedDescending: readonly number[]): number {
+function smallestPositive(sortedDescending: Float64Array): number {
   let smallest = Infinity;
   for (const value of sortedDescending) if (value > 0 && value < smallest) smallest = value;
   return smallest;
