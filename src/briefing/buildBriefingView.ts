@@ -574,7 +574,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     },
     headline: {
       available: chance.available,
-      sentence: chance.available ? headlineSentence(outlook.fireYear.estimate, outlook.baseRate.estimate) : `Chance of a high-fire year: ${chance.missingText ?? NOT_ENOUGH_DATA}.`,
+      sentence: chance.available ? headlineSentence(outlook.fireYear, outlook.baseRate) : `Chance of a high-fire year: ${chance.missingText ?? NOT_ENOUGH_DATA}.`,
       chance,
       base,
       comparison: chanceComparison(outlook.fireYear.estimate, outlook.baseRate.estimate),
@@ -603,7 +603,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         index: phase.index,
         value: formatDecimal(phase.value, 2),
         phase: phase.label,
-        zText: Number.isFinite(phase.z) ? `${signed(phase.z, 1)} SD from the ${period.first}–${period.last} mean` : NOT_ENOUGH_DATA,
+        zText: phase.z !== null && Number.isFinite(phase.z) ? `${signed(phase.z, 1)} SD from the ${period.first}–${period.last} mean` : "distance from the mean not computable (the index does not vary)",
         nearBoundary: phase.nearBoundary,
         note: phase.nearBoundary
           ? `near a phase boundary (within ${formatDecimal(methods.nearBoundaryMargin, 2)}): a small change would change the phase`

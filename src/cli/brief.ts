@@ -14,13 +14,13 @@ import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { progressReporter } from "./calibrate.js";
 import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
-import { resolveOutlookRequest } from "./outlookRequest.js";
+import { collectOption, resolveOutlookRequest } from "./outlookRequest.js";
 import { firephaseVersion } from "./version.js";
 import { writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
 
 /** Options of `firephase brief`, as commander parses them. */
 export interface BriefOptions {
-  readonly values?: string;
+  readonly values?: string | readonly string[];
   readonly issued?: string;
   readonly season?: string;
   readonly out?: string;
@@ -143,7 +143,7 @@ export function briefCommand(): Command {
   return new Command("brief")
     .description("write the dated PDF briefing: odds, phases, skill, charts, methods and cautions")
     .argument("<region>", "region folder (holds region.json)")
-    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json)")
+    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json; may be repeated)", collectOption)
     .option("--issued <date>", "issue date YYYY-MM-DD (default: region.json, then today)")
     .option("--season <year>", "fire season year (default: region.json, then the issue year)")
     .option("--out <file>", "PDF to write (default: briefing-<region>-<issue date>.pdf here)")

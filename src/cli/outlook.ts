@@ -1,13 +1,13 @@
 import { Command } from "commander";
 import { runCalibration } from "../calibrate/runCalibration.js";
 import { buildOutlook } from "../outlook/buildOutlook.js";
-import { formatPercent, formatPercentRange, headline } from "../outlook/describeChance.js";
+import { comparisonSentence, formatPercent, formatPercentRange, headline } from "../outlook/describeChance.js";
 import { toOutlookJson } from "../outlook/toOutlookJson.js";
 import type { Outlook } from "../outlook/types.js";
 import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { progressReporter } from "./calibrate.js";
 import { handleError } from "./handleError.js";
-import { resolveOutlookRequest } from "./outlookRequest.js";
+import { collectOption, resolveOutlookRequest } from "./outlookRequest.js";
 import { printJson } from "./printJson.js";
 import { fixed, textTable } from "./textTable.js";
 
@@ -16,11 +16,11 @@ export function outlookCommand(): Command {
   return new Command("outlook")
     .description("odds of a high-fire year for this season's index values, analog years and hindcast skill")
     .argument("<region>", "region folder (holds region.json)")
-    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json)")
+    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json; may be repeated)", collectOption)
     .option("--issued <date>", "issue date YYYY-MM-DD (default: region.json, then today)")
     .option("--season <year>", "fire season year (default: region.json, then the issue year)")
     .option("--json", "print the outlook as JSON (schema firephase.outlook/1)")
-    .action(async (region: string, options: { values?: string; issued?: string; season?: string; json?: boolean }) => {
+    .action(async (region: string, options: { values?: string | readonly string[]; issued?: string; season?: string; json?: boolean }) => {
       try {
         const workspace = await loadWorkspace(region);
         const request = resolveOutlookRequest(workspace, options, new Date());
@@ -40,8 +40,13 @@ export function formatOutlook(outlook: Outlook): string {
   const skill = outlook.hindcast;
   out.push(`Fire-season outlook — ${outlook.region}, ${outlook.season} season (issued ${outlook.issued})`);
   out.push("");
-  out.push(headline(outlook.fireYear.estimate, outlook.baseRate.estimate));
+  out.push(headline(outlook.fireYear, outlook.baseRate));
+  out.push(comparisonSentence(outlook.fireYear, outlook.baseRate));
   out.push(skill.verdict);
+  if (outlook.warnings.length > 0) {
+    out.push("", "Read with care:");
+    for (const warning of outlook.warnings) out.push(`  - ${warning.message}`);
+  }
   out.push("");
   out.push(
     `Chance of a high-fire year: ${formatPercent(outlook.fireYear.estimate)} (95% interval ${formatPercentRange(outlook.fireYear.lower, outlook.fireYear.upper)}); ` +
@@ -56,12 +61,13 @@ export function formatOutlook(outlook: Outlook): string {
   out.push("This season's index phases:");
   out.push(
     textTable(
-      ["index", "value", "phase", "P(fire year) in this phase", "95% interval", "years"],
+      ["index", "value", "from", "phase", "P(fire year) in this phase", "95% interval", "years"],
       outlook.current.map((phase) => {
         const odds = outlook.perIndex.find((entry) => entry.index === phase.index);
         return [
           phase.index,
           fixed(phase.value, 2),
+          phase.source,
           phase.label + (phase.nearBoundary ? " (near a phase boundary)" : ""),
           formatPercent(odds?.probability.estimate ?? null),
           formatPercentRange(odds?.probability.lower ?? null, odds?.probability.upper ?? null),
@@ -95,10 +101,6 @@ export function formatOutlook(outlook: Outlook): string {
       (skill.reason !== undefined ? ` — not enough data: ${skill.reason}` : ""),
   );
   out.push(`  rule: ${skill.rule}`);
-  if (outlook.warnings.length > 0) {
-    out.push("", "Warnings:");
-    for (const warning of outlook.warnings) out.push(`  - ${warning.message}`);
-  }
   out.push("");
   out.push("Caution: a statistical long-range outlook. It does not replace official agency outlooks, fire-danger ratings,");
   out.push("local codes or the direction of qualified fire personnel, and must never be used for tactical or evacuation decisions.");

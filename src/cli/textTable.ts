@@ -4,7 +4,7 @@
  */
 export function textTable(header: readonly string[], rows: readonly (readonly string[])[], indent = "  "): string {
   const widths = header.map((cell, column) => Math.max(cell.length, ...rows.map((row) => (row[column] ?? "").length)));
-  const isNumeric = (text: string): boolean => /^[-+−.0-9]/.test(text);
+  const isNumeric = (text: string): boolean => /^[-+−]?\.?[0-9<]/.test(text);
   const line = (cells: readonly string[]): string =>
     indent +
     cells

@@ -8,6 +8,7 @@ import type { Calibration } from "../calibrate/types.js";
 import { runHindcast } from "../hindcast/runHindcast.js";
 import type { Workspace } from "../workspace/types.js";
 import { analogYears } from "./analogYears.js";
+import { comparedWithBase, formatPercent, formatPercentRange } from "./describeChance.js";
 import type { AnalogYear, CurrentPhase, Outlook } from "./types.js";
 
 export interface OutlookRequest {
@@ -16,6 +17,10 @@ export interface OutlookRequest {
   /** Issue date, YYYY-MM-DD. */
   readonly issued: string;
   readonly season: number;
+  /** Where each value came from (shown beside it); absent entries are reported as "given". */
+  readonly sources?: Readonly<Record<string, "region.json" | "--values">>;
+  /** Notes about the request itself (e.g. values written for another season), printed as warnings. */
+  readonly notes?: readonly { readonly code: string; readonly message: string }[];
 }
 
 /**
@@ -37,7 +42,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     top: settings.fireYears.top,
     measure: settings.fireYears.measure,
   });
-  const warnings: { code: string; message: string }[] = [];
+  const warnings: { code: string; message: string }[] = [...(request.notes ?? [])];
   const current: CurrentPhase[] = [];
   const missing: string[] = [];
   const currentPhase = new Map<string, number>();
@@ -61,7 +66,8 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
       value,
       label: index.definition.labels[phase] ?? String(phase),
       nearBoundary: isNearBoundary(value, index.definition.cuts, settings.methods.nearBoundaryMargin),
-      z: Number.isFinite(z) ? z : 0,
+      z: Number.isFinite(z) ? z : null,
+      source: request.sources?.[index.name] ?? "given",
     });
     currentPhase.set(index.name, phase);
     currentValue.set(index.name, value);
@@ -83,11 +89,47 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const cellWords = cell.indices.map((index, i) => `${index} ${labelOf(index, cell.phases[i] as number)}`).join(" and ");
   const basis =
     cell.basis === "joint"
-      ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices most strongly linked to fire years)`
+      ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices with the strongest measured link to fire years in the calibration, by chi-square p)`
       : cell.basis === "single"
-        ? `the ${cell.years.length} calibration years when ${cellWords} (the index most strongly linked to fire years` +
+        ? `the ${cell.years.length} calibration years when ${cellWords} (the index with the strongest measured link to fire years in the calibration, by chi-square p` +
           (currentPhase.size > 1 ? `; the joint phase with the next index had fewer than ${settings.methods.jointMinYears} years)` : ")")
         : `all ${cell.years.length} calibration years (no current index value was given, so this is the long-term average)`;
+  // Honesty notes on the basis: an index whose link is not clear in the record, and an index whose
+  // value sits near a phase boundary, each with the odds the other reading would give.
+  const probabilityWords = (k: number, n: number): string => {
+    const estimate = proportionEstimate(k, n, method);
+    return `${formatPercent(estimate.estimate)} (95% interval ${formatPercentRange(estimate.lower, estimate.upper)}, ${n} years)`;
+  };
+  cell.indices.forEach((name, position) => {
+    const calibrated = calibration.indices.find((index) => index.name === name);
+    if (calibrated === undefined) return;
+    const q = calibrated.contingency.qValue;
+    if (cell.indices.length === 2 && (q === null || q > 0.05)) {
+      const other = cell.indices[1 - position] as string;
+      const alone = forecastCell(training, new Map([[other, currentPhase.get(other) as number]]), [{ index: other, chiSquare: 0, pValue: 0 }], 0);
+      warnings.push({
+        code: "weak-basis-index",
+        message: `${name}'s link to fire years is not clear in the record (chi-square q = ${q === null ? "not computable" : q.toPrecision(2)}); from ${other} ${labelOf(other, currentPhase.get(other) as number)} alone the chance is ${probabilityWords(alone.fireYears, alone.years.length)}`,
+      });
+    }
+    const value = currentValue.get(name) as number;
+    const cuts = calibrated.definition.cuts;
+    if (!isNearBoundary(value, cuts, settings.methods.nearBoundaryMargin)) return;
+    const nearest = cuts.reduce((best, cut) => (Math.abs(cut - value) < Math.abs(best - value) ? cut : best), cuts[0] as number);
+    const phase = currentPhase.get(name) as number;
+    const step = 1e-9 * Math.max(1, Math.abs(nearest));
+    const otherPhase = [nearest - step, nearest, nearest + step]
+      .map((candidate) => classifyPhase(candidate, cuts))
+      .find((candidate) => candidate !== phase) ?? phase;
+    if (otherPhase < 0 || otherPhase >= calibrated.definition.labels.length || otherPhase === phase) return;
+    const shifted = new Map(currentPhase);
+    shifted.set(name, otherPhase);
+    const alternative = forecastCell(training, shifted, [...cell.indices].map((index) => ({ index, chiSquare: 0, pValue: 0 })), 0);
+    warnings.push({
+      code: "basis-near-boundary",
+      message: `${name} (${value}) is within ${settings.methods.nearBoundaryMargin} of its ${nearest.toFixed(2)} phase boundary: had it been ${labelOf(name, otherPhase)}, the chance would be ${probabilityWords(alternative.fireYears, alternative.years.length)}`,
+    });
+  });
   const n = cell.years.length;
   const fireYear = {
     ...proportionEstimate(cell.fireYears, n, method),
@@ -96,6 +138,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     years: n,
     fireYears: cell.fireYears,
   };
+  const fireYearWithComparison = { ...fireYear, comparedWithBase: comparedWithBase(fireYear, calibration.baseRate) };
   if (n > 0 && n < settings.methods.smallSampleYears) {
     warnings.push({ code: "small-basis", message: `the odds rest on only ${n} past years: treat them as rough` });
   }
@@ -139,7 +182,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   });
   const analogFireShare = proportionEstimate(analogs.filter((analog) => analog.fireYear).length, analogs.length, method);
 
-  const hindcast = runHindcast({
+  const computedSkill = runHindcast({
     years: calibration.years,
     activity: calibration.activity,
     indexValues,
@@ -150,6 +193,14 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     exclusion: settings.methods.hindcastExclusion,
     jointMinYears: settings.methods.jointMinYears,
   });
+  const hindcast =
+    currentPhase.size === 0
+      ? {
+          ...computedSkill,
+          verdict:
+            "No current index values were given, so these are the long-term average odds; a skill score does not apply to them.",
+        }
+      : computedSkill;
 
   return {
     issued: request.issued,
@@ -158,7 +209,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     baseRate: calibration.baseRate,
     current,
     missing,
-    fireYear,
+    fireYear: fireYearWithComparison,
     perIndex,
     categories,
     analogs,

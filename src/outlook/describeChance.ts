@@ -1,19 +1,43 @@
 /**
- * A probability in plain words for a planning meeting: "about 3 in 10". Probabilities are rounded
- * to the nearest tenth; below 0.05 it says "less than 1 in 20" and above 0.95 "more than 19 in 20",
- * where "about 0 in 10" or "about 10 in 10" would mislead.
+ * Plain words for a probability, for a planning meeting. Each probability is matched to the
+ * nearest of a short list of simple odds (1 in 20, 1 in 10, 1 in 7, 1 in 5, 1 in 4, 3 in 10,
+ * 1 in 3, 2 in 5, 1 in 2, 3 in 5, 2 in 3, 3 in 4, 4 in 5, 9 in 10, 19 in 20), so that "about
+ * 1 in 3" stands beside 35% rather than a rounded-down "3 in 10". Below 0.04 it says "less than
+ * 1 in 20" and above 0.96 "more than 19 in 20". (Expressing probabilities as natural frequencies
+ * is common practice in risk communication.)
  *
+ * @example describeChance(0.35) // => "about 1 in 3"
  * @example describeChance(0.287) // => "about 3 in 10"
  * @example describeChance(0.1) // => "about 1 in 10"
  */
 export function describeChance(probability: number | null): string {
   if (probability === null || !Number.isFinite(probability)) return "not known (not enough data)";
-  if (probability < 0.05) return "less than 1 in 20";
-  if (probability > 0.95) return "more than 19 in 20";
-  const tenths = Math.round(probability * 10);
-  if (tenths === 5) return "about an even (1 in 2)";
-  return `about ${tenths} in 10`;
+  if (probability < 0.04) return "less than 1 in 20";
+  if (probability > 0.96) return "more than 19 in 20";
+  let best = SIMPLE_ODDS[0] as (typeof SIMPLE_ODDS)[number];
+  for (const odds of SIMPLE_ODDS) {
+    if (Math.abs(odds.value - probability) < Math.abs(best.value - probability)) best = odds;
+  }
+  return `about ${best.words}`;
 }
+
+const SIMPLE_ODDS = [
+  [1, 20],
+  [1, 10],
+  [1, 7],
+  [1, 5],
+  [1, 4],
+  [3, 10],
+  [1, 3],
+  [2, 5],
+  [1, 2],
+  [3, 5],
+  [2, 3],
+  [3, 4],
+  [4, 5],
+  [9, 10],
+  [19, 20],
+].map(([k, n]) => ({ value: (k as number) / (n as number), words: `${k} in ${n}` }));
 
 /** A probability as a whole percentage, e.g. 0.287 → "29%"; null → "not enough data". */
 export function formatPercent(probability: number | null): string {
@@ -27,12 +51,50 @@ export function formatPercentRange(lower: number | null, upper: number | null): 
   return `${Math.round(lower * 100)}–${Math.round(upper * 100)}%`;
 }
 
-/** The headline sentence of an outlook. */
-export function headline(fireYear: number | null, baseRate: number | null): string {
-  const chance = describeChance(fireYear);
-  const base = describeChance(baseRate);
-  if (chance === "about an even (1 in 2)") return `An even chance (about 1 in 2) of a high-fire year; in an average year ${base}.`;
-  return `${capitalize(chance)} chance of a high-fire year; in an average year ${base}.`;
+interface Chance {
+  readonly estimate: number | null;
+  readonly lower: number | null;
+  readonly upper: number | null;
+}
+
+/**
+ * The headline sentence of an outlook, with the estimate, its interval and the average year:
+ * "About 1 in 3 chance of a high-fire year (35%, 95% interval 19–54%); in an average year about
+ * 1 in 10 (10%)."
+ */
+export function headline(fireYear: Chance, baseRate: Pick<Chance, "estimate">): string {
+  if (fireYear.estimate === null) return "Chance of a high-fire year: not enough data.";
+  const chance = describeChance(fireYear.estimate);
+  const interval =
+    fireYear.lower !== null && fireYear.upper !== null ? `, 95% interval ${formatPercentRange(fireYear.lower, fireYear.upper)}` : "";
+  return (
+    `${capitalize(chance)} chance of a high-fire year (${formatPercent(fireYear.estimate)}${interval}); ` +
+    `in an average year ${describeChance(baseRate.estimate)} (${formatPercent(baseRate.estimate)}).`
+  );
+}
+
+/**
+ * Whether this season's chance differs from the average year beyond its uncertainty: "higher" or
+ * "lower" when the 95% interval excludes the base rate, otherwise "not distinguishable".
+ */
+export function comparedWithBase(fireYear: Chance, baseRate: Pick<Chance, "estimate">): "higher" | "lower" | "not distinguishable" {
+  const base = baseRate.estimate;
+  if (base === null || fireYear.lower === null || fireYear.upper === null) return "not distinguishable";
+  if (fireYear.lower > base) return "higher";
+  if (fireYear.upper < base) return "lower";
+  return "not distinguishable";
+}
+
+/** One plain sentence on how this season compares with an average year, given {@link comparedWithBase}. */
+export function comparisonSentence(fireYear: Chance, baseRate: Pick<Chance, "estimate">): string {
+  switch (comparedWithBase(fireYear, baseRate)) {
+    case "higher":
+      return "The odds are higher than in an average year, beyond their uncertainty.";
+    case "lower":
+      return "The odds are lower than in an average year, beyond their uncertainty.";
+    default:
+      return "The interval includes the average-year chance: this season may not differ from an average year.";
+  }
 }
 
 function capitalize(text: string): string {

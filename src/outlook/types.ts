@@ -7,8 +7,10 @@ export interface CurrentPhase {
   readonly value: number;
   readonly label: string;
   readonly nearBoundary: boolean;
-  /** z-score of the value against the calibration period. */
-  readonly z: number;
+  /** z-score of the value against the calibration period; null when the index has no spread (SD 0 or undefined). */
+  readonly z: number | null;
+  /** Where the value came from: "region.json" or "--values". */
+  readonly source: string;
 }
 
 export interface AnalogYear {
@@ -33,6 +35,8 @@ export interface Outlook {
     readonly basisIndices: readonly string[];
     readonly years: number;
     readonly fireYears: number;
+    /** "higher" / "lower" when the 95% interval excludes the base rate, else "not distinguishable". */
+    readonly comparedWithBase: "higher" | "lower" | "not distinguishable";
   };
   readonly perIndex: readonly { readonly index: string; readonly label: string; readonly probability: ProbabilityEstimate; readonly years: number; readonly fireYears: number }[];
   readonly categories: {

@@ -228,11 +228,11 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
     region: regionName,
     baseRate,
     current: [
-      { index: "ENSO", value: 1.2, label: "warm", nearBoundary: false, z: 1.4 },
-      { index: "NAO", value: 0.46, label: "positive", nearBoundary: true, z: 0.5 },
+      { index: "ENSO", value: 1.2, label: "warm", nearBoundary: false, z: 1.4, source: "region.json" },
+      { index: "NAO", value: 0.46, label: "positive", nearBoundary: true, z: 0.5, source: "--values" },
     ],
     missing: [],
-    fireYear: { ...fireYearEstimate, basis: "the ENSO warm phase", basisIndices: ["ENSO"], years: 83, fireYears: 17 },
+    fireYear: { ...fireYearEstimate, basis: "the ENSO warm phase", basisIndices: ["ENSO"], years: 83, fireYears: 17, comparedWithBase: "higher" },
     perIndex: [
       { index: "ENSO", label: "warm", probability: estimate(17, 83, false), years: 83, fireYears: 17 },
       { index: "NAO", label: "positive", probability: estimate(13, 97, false), years: 97, fireYears: 13 },

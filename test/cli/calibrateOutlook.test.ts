@@ -35,10 +35,25 @@ describe("firephase outlook demo-region", () => {
     const run = firephase("outlook", "demo-region");
     expect(run.code).toBe(0);
     const lines = run.stdout.split("\n");
-    expect(lines[2]).toMatch(/^About \d+ in 10 chance of a high-fire year; in an average year about 1 in 10\.$/);
-    expect(lines[3]).toMatch(/skill/i);
+    expect(lines[2]).toMatch(/^About \d+ in \d+ chance of a high-fire year \(\d+%, 95% interval \d+–\d+%\); in an average year about 1 in 10 \(10%\)\.$/);
+    expect(lines[3]).toMatch(/average year/);
+    expect(lines[4]).toMatch(/skill/i);
     expect(run.stdout).toMatch(/Analog years/);
     expect(run.stdout).toMatch(/does not replace official agency outlooks/);
+  });
+
+  it("merges repeated --values and says where each value came from", () => {
+    const run = firephase("outlook", "demo-region", "--values", "ENSO=-1", "--values", "NAO=0.1", "--json");
+    expect(run.code).toBe(0);
+    const json = JSON.parse(run.stdout);
+    const sources = Object.fromEntries(json.current.map((c: { index: string; source: string }) => [c.index, c.source]));
+    expect(sources).toEqual({ ENSO: "--values", NAO: "--values", AMO: "region.json", PDO: "region.json" });
+  });
+
+  it("warns when region.json's values were written for another season", () => {
+    const run = firephase("outlook", "demo-region", "--season", "2028", "--json");
+    const json = JSON.parse(run.stdout);
+    expect(json.warnings.map((w: { code: string }) => w.code)).toContain("values-for-another-season");
   });
 
   it("takes --values over region.json and keeps the promised JSON", () => {
@@ -54,7 +69,9 @@ describe("firephase outlook demo-region", () => {
 
   it.each([
     [["--values", "FOO=1"], /unknown index "FOO"; this region's indices are ENSO, NAO, AMO, PDO/],
-    [["--values", "ENSO=warm"], /ENSO must be a number, found "warm"/],
+    [["--values", "ENSO=warm"], /ENSO must be a decimal number such as 1.2 or -0.5, found "warm"/],
+    [["--values", "ENSO=0x10"], /ENSO must be a decimal number/],
+    [["--values", "ENSO=1,ENSO=2"], /ENSO is given more than once/],
     [["--issued", "10 March"], /--issued: expected a date as YYYY-MM-DD/],
     [["--season", "next"], /--season: expected a year/],
   ])("exits 2 with a clear message for bad usage %j", (args, message) => {
