@@ -1,4 +1,4 @@
-import chiSquareCdf from "@stdlib/stats-base-dists-chisquare-cdf";
+import gammainc from "@stdlib/math-base-special-gammainc";
 import { StatsInputError } from "./StatsInputError.js";
 
 /** Result of {@link chiSquareIndependence}; matrices cover the retained rows and columns only. */
@@ -135,54 +135,11 @@ function indicesWhere(values: readonly number[], predicate: (value: number) => b
 }
 
 /**
- * Upper tail P(χ²_df ≥ x) for a positive integer df. Where x/2 ≤ df/2 + 1 the tail is at least about 0.08, so
- * 1 − CDF loses no relative precision; further out the upper regularized gamma Q(df/2, x/2) is evaluated by
- * its continued fraction (modified Lentz), which is accurate down to the smallest doubles.
+ * Upper tail P(χ²_df ≥ x) = Q(df/2, x/2), the upper regularized incomplete gamma function, from
+ * @stdlib/math-base-special-gammainc (upper tail computed directly, so far-tail p-values keep their
+ * relative precision instead of rounding to 0 as 1 − CDF would).
  */
 function chiSquareUpperTail(x: number, df: number): number {
   if (!(x > 0)) return 1;
-  const shape = df / 2;
-  const halfX = x / 2;
-  if (halfX <= shape + 1) {
-    return Math.min(1, Math.max(0, 1 - chiSquareCdf(x, df)));
-  }
-  return upperRegularizedGammaContinuedFraction(shape, halfX, logGammaOfHalfInteger(df));
-}
-
-/** ln Γ(df/2) for a positive integer df, exactly from Γ(k) = (k − 1)! and Γ(k + ½) = √π·Π(j − ½). */
-function logGammaOfHalfInteger(df: number): number {
-  let logGamma = 0;
-  if (df % 2 === 0) {
-    for (let factor = 2; factor < df / 2; factor += 1) logGamma += Math.log(factor);
-  } else {
-    logGamma = 0.5 * Math.log(Math.PI);
-    for (let factor = 0.5; factor < df / 2; factor += 1) logGamma += Math.log(factor);
-  }
-  return logGamma;
-}
-
-/**
- * Q(a, x) = Γ(a, x)/Γ(a) by the Legendre continued fraction evaluated with the modified Lentz method
- * (Press et al. 2007, Numerical Recipes, 3rd ed., §6.2, eq. 6.2.7); converges quickly for x > a + 1.
- */
-function upperRegularizedGammaContinuedFraction(a: number, x: number, logGammaA: number): number {
-  const tiny = 1e-300;
-  const epsilon = 1e-16;
-  let b = x + 1 - a;
-  let c = 1 / tiny;
-  let d = 1 / b;
-  let fraction = d;
-  for (let iteration = 1; iteration <= 10_000; iteration += 1) {
-    const numerator = -iteration * (iteration - a);
-    b += 2;
-    d = numerator * d + b;
-    if (Math.abs(d) < tiny) d = tiny;
-    c = b + numerator / c;
-    if (Math.abs(c) < tiny) c = tiny;
-    d = 1 / d;
-    const step = d * c;
-    fraction *= step;
-    if (Math.abs(step - 1) < epsilon) break;
-  }
-  return Math.exp(-x + a * Math.log(x) - logGammaA) * fraction;
+  return Math.min(1, Math.max(0, gammainc(x / 2, df / 2, true, true)));
 }
