@@ -27,7 +27,9 @@ export function selectFireYears(
     .sort()
     .reverse();
   const n = ranked.length;
-  const rank = Math.max(1, Math.ceil(top * n));
+  // top × n in floating point can land just above a whole number (0.07 × 100 = 7.000000000000001);
+  // a tolerance keeps ceil() from skipping to the next rank.
+  const rank = Math.max(1, Math.ceil(top * n - 1e-9));
   const atRank = n === 0 ? undefined : ranked[Math.min(rank, n) - 1];
   const anyPositive = ranked.length > 0 && (ranked[0] ?? 0) > 0;
   let threshold: number | null = null;

@@ -37,4 +37,12 @@ describe("selectFireYears(activity, years, top, measure)", () => {
     expect(none.years).toEqual([]);
     expect(selectFireYears(new Map(), [], 0.1, "sites").calibrationYears).toBe(0);
   });
+
+  it("takes exactly ceil(top × N) years when top × N is whole but not exact in floating point", () => {
+    // 0.07 × 100 = 7.000000000000001 and 0.55 × 100 = 55.00000000000001 in binary floating point
+    const hundred = Array.from({ length: 100 }, (_, i) => i + 1);
+    const distinct = new Map(hundred.map((year) => [year, year / 100]));
+    expect(selectFireYears(distinct, hundred, 0.07, "fraction").years).toHaveLength(7);
+    expect(selectFireYears(distinct, hundred, 0.55, "fraction").years).toHaveLength(55);
+  });
 });
