@@ -16,7 +16,9 @@ export interface ForecastCell {
  * Chooses the past years a forecast is read from (DESIGN.md, Outlook):
  * the joint phase of the two indices with the strongest calibrated association (smallest chi-square
  * p) when that joint cell holds at least `jointMinYears` training years; otherwise the current phase
- * of the single strongest index; with no current index value, all training years (climatology).
+ * of the single strongest index that has at least one training year in that phase; with no current
+ * index value, or no past year in any current phase, all training years (climatology). The outlook
+ * and the hindcast both use this one rule, so the hindcast verifies what the outlook issues.
  *
  * @param training - the training years and their fire years, categories and phases
  * @param current - the current phase number per index (indices without a current value are absent)
@@ -35,7 +37,10 @@ export function forecastCell(
     const joint = cellOf(training, [first, second], [current.get(first) as number, current.get(second) as number]);
     if (joint.years.length >= jointMinYears) return { ...joint, basis: "joint" };
   }
-  if (first !== undefined) return { ...cellOf(training, [first], [current.get(first) as number]), basis: "single" };
+  for (const index of usable) {
+    const single = cellOf(training, [index], [current.get(index) as number]);
+    if (single.years.length > 0) return { ...single, basis: "single" };
+  }
   return { ...cellOf(training, [], []), basis: "climatology" };
 }
 

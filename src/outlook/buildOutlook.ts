@@ -87,13 +87,19 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const labelOf = (index: string, phase: number): string =>
     calibration.indices.find((candidate) => candidate.name === index)?.definition.labels[phase] ?? String(phase);
   const cellWords = cell.indices.map((index, i) => `${index} ${labelOf(index, cell.phases[i] as number)}`).join(" and ");
+  const strongest = ranking.find((rank) => currentPhase.has(rank.index))?.index;
   const basis =
     cell.basis === "joint"
       ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices with the strongest measured link to fire years in the calibration, by chi-square p)`
       : cell.basis === "single"
-        ? `the ${cell.years.length} calibration years when ${cellWords} (the index with the strongest measured link to fire years in the calibration, by chi-square p` +
+        ? `the ${cell.years.length} calibration years when ${cellWords} (` +
+          (cell.indices[0] === strongest
+            ? "the index with the strongest measured link to fire years in the calibration, by chi-square p"
+            : "the most strongly linked index with past years in its current phase") +
           (currentPhase.size > 1 ? `; the joint phase with the next index had fewer than ${settings.methods.jointMinYears} years)` : ")")
-        : `all ${cell.years.length} calibration years (no current index value was given, so this is the long-term average)`;
+        : currentPhase.size === 0
+          ? `all ${cell.years.length} calibration years (no current index value was given, so this is the long-term average)`
+          : `all ${cell.years.length} calibration years (no past year shared this season's phases, so this is the long-term average)`;
   // Honesty notes on the basis: an index whose link is not clear in the record, and an index whose
   // value sits near a phase boundary, each with the odds the other reading would give.
   const probabilityWords = (k: number, n: number): string => {

@@ -103,4 +103,25 @@ describe("buildOutlook(workspace, calibration, request)", () => {
     );
     expect(json.analogs[0]).toEqual(expect.objectContaining({ year: expect.any(Number), distance: expect.any(Number), fireYear: expect.any(Boolean), activity: expect.any(Number) }));
   });
+
+  it("falls back as the hindcast does when this season's phase has no past year", () => {
+    // Cuts at ±5 leave the outer phases of index A empty in a standard-normal record.
+    const base = syntheticWorkspace({ effect: 1.6, seed: 11 });
+    const wide = {
+      ...base,
+      settings: {
+        ...base.settings,
+        indices: base.settings.indices.map((index) =>
+          index.name === "A" ? { ...index, phases: { kind: "cuts" as const, cuts: [-5, 5], labels: ["low", "mid", "high"] } } : index,
+        ),
+      },
+    };
+    const wideCalibration = runCalibration(wide);
+    const alone = buildOutlook(wide, wideCalibration, { values: { A: 10 }, issued: "2027-03-10", season: 2027 });
+    expect(alone.fireYear.estimate).toBeCloseTo(wideCalibration.baseRate.estimate as number, 12);
+    expect(alone.fireYear.basis).toMatch(/no past year shared this season's phases/);
+    const withB = buildOutlook(wide, wideCalibration, { values: { A: 10, B: 0.1 }, issued: "2027-03-10", season: 2027 });
+    expect(withB.fireYear.basisIndices).toEqual(["B"]);
+    expect(withB.fireYear.estimate).not.toBeNull();
+  });
 });
