@@ -1,6 +1,6 @@
 import { readFile } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
-import { basename, resolve } from "node:path";
+import { basename, isAbsolute, join, resolve } from "node:path";
 import { Command } from "commander";
 import { buildBriefingView } from "../briefing/buildBriefingView.js";
 import { embeddedFontCss } from "../briefing/embeddedFonts.js";
@@ -16,7 +16,7 @@ import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
 import { collectOption, resolveOutlookRequest } from "./outlookRequest.js";
 import { firephaseVersion } from "./version.js";
-import { writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
+import { checkOutputTargets, OutputPathError, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
 
 /** Options of `firephase brief`, as commander parses them. */
 export interface BriefOptions {
@@ -39,11 +39,13 @@ export interface BriefContext {
   readonly safetyPath?: string;
 }
 
-/** The files a briefing run wrote. */
+/** The files a briefing run wrote, and the outlook's notes for the person running it. */
 export interface BriefResult {
   readonly pdfPath: string;
   readonly htmlPath: string | null;
   readonly pages: number | null;
+  /** The outlook's plain-language warnings (also printed on page 1), for stderr. */
+  readonly notes: readonly string[];
 }
 
 /** SAFETY.md of the package (two folders up from src/cli and dist/cli). */
@@ -53,6 +55,24 @@ export const PACKAGE_SAFETY_PATH = fileURLToPath(new URL("../../SAFETY.md", impo
 function pdfPageCount(pdf: Uint8Array): number | null {
   const counts = [...Buffer.from(pdf).toString("latin1").matchAll(/\/Count\s+(\d+)/g)].map((match) => Number(match[1]));
   return counts.length === 0 ? null : Math.max(...counts);
+}
+
+/**
+ * A path as the user typed it when the command runs in the process's own working folder (so
+ * messages read like the other commands'), else joined with `cwd`; absolute paths stay as they are.
+ */
+function located(path: string, cwd: string): string {
+  return isAbsolute(path) || resolve(cwd) === process.cwd() ? path : join(cwd, path);
+}
+
+/** Output-path problems are usage errors: `cannot write <path>: <reason>`, exit 2. */
+async function outputChecked<T>(work: () => Promise<T>): Promise<T> {
+  try {
+    return await work();
+  } catch (error) {
+    if (error instanceof OutputPathError) throw new UsageError(error.message);
+    throw error;
+  }
 }
 
 function paperOption(value: string | undefined): PaperSize {
@@ -70,16 +90,29 @@ function paperOption(value: string | undefined): PaperSize {
  *
  * Default output: `briefing-<region folder name>-<issue date>.pdf` in `context.cwd`.
  *
+ * Output locations are checked before any work and again before printing: `--out` and `--html`
+ * naming one file, a missing folder or a target that is a folder are usage errors
+ * (`cannot write <path>: <reason>`). The region path is passed on as typed when `context.cwd` is
+ * the process's working folder, so error messages name files as the user wrote them.
+ *
  * @param region - region folder.
  * @param options - the command's options (see {@link BriefOptions}).
  * @param context - working folder, today's date, environment (FIREPHASE_BROWSER).
- * @returns the absolute paths written.
- * @throws InputError for bad region data, UsageError for bad options or no usable browser.
+ * @returns the absolute paths written, the page count and the outlook's notes (for stderr).
+ * @throws InputError for bad region data, UsageError for bad options, output paths that cannot be
+ *   written or no usable browser.
  * @example
  * await runBrief("demo-region", { out: "brief.pdf" }, { cwd: process.cwd(), today: new Date(), env: process.env });
  */
 export async function runBrief(region: string, options: BriefOptions, context: BriefContext): Promise<BriefResult> {
   const paper = paperOption(options.paper);
+  const outGiven = options.out === undefined ? null : located(options.out, context.cwd);
+  const htmlGiven = options.html === undefined ? null : located(options.html, context.cwd);
+  if (outGiven !== null && htmlGiven !== null && resolve(outGiven) === resolve(htmlGiven)) {
+    throw new UsageError(`--out and --html name the same file (${htmlGiven}): give the HTML another name`);
+  }
+  // Bad output locations fail before any work is done.
+  await outputChecked(() => checkOutputTargets([outGiven, htmlGiven].filter((path): path is string => path !== null)));
   // Start the browser now: it launches while the statistics are computed.
   const printerPromise = findBrowser({ explicit: options.browser, env: context.env })
     .then((browser) => PdfPrinter.launch(browser))
@@ -94,7 +127,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     });
   printerPromise.catch(() => undefined); // observed below; never an unhandled rejection
   try {
-    const workspace = await loadWorkspace(resolve(context.cwd, region));
+    const workspace = await loadWorkspace(located(region, context.cwd));
     const request = resolveOutlookRequest(workspace, options, context.today);
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
     const outlook = buildOutlook(workspace, calibration, request);
@@ -107,6 +140,8 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     }
     const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper });
     const html = renderBriefingHtml(view);
+    const pdfTarget = outGiven ?? located(`briefing-${basename(workspace.root)}-${outlook.issued}.pdf`, context.cwd);
+    await outputChecked(() => checkOutputTargets(htmlGiven === null ? [pdfTarget] : [pdfTarget, htmlGiven]));
     let printer: PdfPrinter;
     try {
       printer = await printerPromise;
@@ -119,12 +154,15 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       footerHtml: escapeHtml(view.footerText),
       footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]),
     });
-    const pdfPath = resolve(context.cwd, options.out ?? `briefing-${basename(workspace.root)}-${outlook.issued}.pdf`);
-    const htmlPath = options.html === undefined ? null : resolve(context.cwd, options.html);
-    const files: FileToWrite[] = [{ path: pdfPath, data: printed.pdf }];
-    if (htmlPath !== null) files.push({ path: htmlPath, data: html });
-    await writeFilesAtomic(files);
-    return { pdfPath, htmlPath, pages: pdfPageCount(printed.pdf) };
+    const files: FileToWrite[] = [{ path: pdfTarget, data: printed.pdf }];
+    if (htmlGiven !== null) files.push({ path: htmlGiven, data: html });
+    await outputChecked(() => writeFilesAtomic(files));
+    return {
+      pdfPath: resolve(pdfTarget),
+      htmlPath: htmlGiven === null ? null : resolve(htmlGiven),
+      pages: pdfPageCount(printed.pdf),
+      notes: outlook.warnings.map((warning) => warning.message),
+    };
   } finally {
     await printerPromise.then((printer) => printer.close()).catch(() => undefined);
   }
@@ -153,6 +191,7 @@ export function briefCommand(): Command {
     .action(async (region: string, options: BriefOptions) => {
       try {
         const result = await runBrief(region, options, { cwd: process.cwd(), today: new Date(), env: process.env });
+        for (const note of result.notes) process.stderr.write(`note: ${note}\n`);
         process.stdout.write(`${result.pdfPath}\n`);
         if (result.htmlPath !== null) process.stdout.write(`${result.htmlPath}\n`);
       } catch (error) {

@@ -1,11 +1,14 @@
 /**
  * Writing output files so that a reader never sees a half-written file and a failure leaves
  * nothing behind: each file is written to a temporary name in its own folder, flushed to disk,
- * and renamed over the target (rename within one folder is atomic on POSIX file systems).
+ * and renamed over the target (rename within one folder is atomic on POSIX file systems). When
+ * several files are written together and a later rename fails, the targets already renamed are
+ * put back as they were (the old file restored, or the new one removed).
  */
 import { randomBytes } from "node:crypto";
-import { open, rename, unlink } from "node:fs/promises";
-import { basename, dirname, join } from "node:path";
+import { constants } from "node:fs";
+import { access, copyFile, link, open, rename, stat, unlink } from "node:fs/promises";
+import { basename, dirname, join, resolve } from "node:path";
 
 /** One file to write. */
 export interface FileToWrite {
@@ -13,12 +16,117 @@ export interface FileToWrite {
   readonly data: string | Uint8Array;
 }
 
-function temporaryPath(path: string): string {
-  return join(dirname(path), `.${basename(path)}.${process.pid}.${randomBytes(6).toString("hex")}.tmp`);
+/**
+ * An output file that cannot be written: `cannot write <path>: <reason>`, where the path is the
+ * one the caller gave and the reason is in plain words (never a temporary file's name).
+ *
+ * @example
+ * new OutputPathError("out/brief.pdf", "the folder out does not exist").message;
+ * // => "cannot write out/brief.pdf: the folder out does not exist"
+ */
+export class OutputPathError extends Error {
+  /** The target path as the caller gave it. */
+  readonly path: string;
+  /** Why it cannot be written, in plain words. */
+  readonly reason: string;
+  constructor(path: string, reason: string) {
+    super(`cannot write ${path}: ${reason}`);
+    this.name = "OutputPathError";
+    this.path = path;
+    this.reason = reason;
+  }
+}
+
+function errorCode(error: unknown): string | undefined {
+  return typeof error === "object" && error !== null && "code" in error && typeof error.code === "string" ? error.code : undefined;
+}
+
+/** A file-system error in plain words, without any path (so no temporary name leaks out). */
+function reasonOf(error: unknown, path: string): string {
+  const folder = dirname(path);
+  switch (errorCode(error)) {
+    case "ENOENT":
+      return `the folder ${folder} does not exist`;
+    case "ENOTDIR":
+      return `${folder} is not a folder`;
+    case "EISDIR":
+      return "it is a folder";
+    case "EACCES":
+    case "EPERM":
+      return "permission denied";
+    case "EROFS":
+      return "the file system is read-only";
+    case "ENOSPC":
+      return "no space left on the device";
+    case "EDQUOT":
+      return "the disk quota is exceeded";
+    case "ENAMETOOLONG":
+      return "the name is too long";
+    case "EXDEV":
+    case "EBUSY":
+      return "the file is in use or on another device";
+    default: {
+      const code = errorCode(error);
+      return code === undefined ? "the file system refused the write" : `the file system refused the write (${code})`;
+    }
+  }
+}
+
+/**
+ * Check, before any work is done, that a file could be written at each path: no path is named
+ * twice (after resolving against the working folder, or as two names of one existing file), each
+ * folder exists, is a folder and is writable, and no target is itself a folder.
+ *
+ * @param paths - target paths, relative to the process's working folder or absolute.
+ * @returns when every target looks writable.
+ * @throws OutputPathError naming the first target that cannot be written and why.
+ * @example
+ * await checkOutputTargets(["brief.pdf", "brief.html"]); // resolves
+ * await checkOutputTargets(["brief.pdf", "./brief.pdf"]); // throws "cannot write ./brief.pdf: it is named twice"
+ */
+export async function checkOutputTargets(paths: readonly string[]): Promise<void> {
+  const seen = new Map<string, string>();
+  for (const path of paths) {
+    const key = resolve(path);
+    if (seen.has(key)) throw new OutputPathError(path, `it is named twice (also as ${seen.get(key) ?? path})`);
+    seen.set(key, path);
+  }
+  const inodes = new Map<string, string>();
+  for (const path of paths) {
+    const folder = dirname(path);
+    let folderStat;
+    try {
+      folderStat = await stat(folder);
+    } catch (error) {
+      throw new OutputPathError(path, errorCode(error) === "ENOENT" ? `the folder ${folder} does not exist` : reasonOf(error, path));
+    }
+    if (!folderStat.isDirectory()) throw new OutputPathError(path, `${folder} is not a folder`);
+    try {
+      await access(folder, constants.W_OK);
+    } catch {
+      throw new OutputPathError(path, `no permission to write in the folder ${folder}`);
+    }
+    let targetStat;
+    try {
+      targetStat = await stat(path);
+    } catch (error) {
+      if (errorCode(error) === "ENOENT") continue;
+      throw new OutputPathError(path, reasonOf(error, path));
+    }
+    if (targetStat.isDirectory()) throw new OutputPathError(path, "it is a folder");
+    const inode = `${targetStat.dev}:${targetStat.ino}`;
+    const other = inodes.get(inode);
+    if (other !== undefined) throw new OutputPathError(path, `it is the same file as ${other}`);
+    inodes.set(inode, path);
+  }
+}
+
+function sidePath(path: string, suffix: string): string {
+  return join(dirname(path), `.${basename(path)}.${process.pid}.${randomBytes(6).toString("hex")}.${suffix}`);
 }
 
 async function writeTemporary(file: FileToWrite): Promise<string> {
-  const temporary = temporaryPath(file.path);
+  const temporary = sidePath(file.path, "tmp");
   const handle = await open(temporary, "wx", 0o644);
   try {
     await handle.writeFile(file.data);
@@ -33,25 +141,70 @@ async function writeTemporary(file: FileToWrite): Promise<string> {
 }
 
 /**
+ * A second name for an existing target, so that it can be put back if a later step fails: a hard
+ * link where the file system allows one (the target itself never moves), else a copy. Null when
+ * there is no target yet.
+ */
+async function keepOld(path: string): Promise<string | null> {
+  try {
+    const existing = await stat(path);
+    if (!existing.isFile()) return null;
+  } catch {
+    return null;
+  }
+  const backup = sidePath(path, "old");
+  try {
+    await link(path, backup);
+  } catch {
+    await copyFile(path, backup, constants.COPYFILE_EXCL);
+  }
+  return backup;
+}
+
+/**
  * Write several files all-or-nothing as far as the file system allows: every file goes to a
  * temporary name beside its target first; only when all are written are they renamed into
- * place. A failure while writing removes every temporary file and leaves the targets untouched.
+ * place. A failure while writing removes every temporary file and leaves the targets untouched;
+ * a failure while renaming puts every target already renamed back as it was (its old contents
+ * restored, or the new file removed where there was none), so a failure never leaves a new
+ * file behind.
  *
  * @param files - paths (relative to the working folder or absolute) and contents.
  * @returns when every file is in place.
- * @throws the file-system error (ENOENT for a missing folder, EACCES, ENOSPC …); no temporary file remains.
+ * @throws OutputPathError `cannot write <path>: <reason>` naming the target (never a temporary
+ *   name); the targets are as before and no temporary file remains.
  * @example
  * await writeFilesAtomic([{ path: "briefing.pdf", data: pdfBytes }, { path: "briefing.html", data: html }]);
  */
 export async function writeFilesAtomic(files: readonly FileToWrite[]): Promise<void> {
   const written: { temporary: string; path: string }[] = [];
+  const placed: { path: string; backup: string | null }[] = [];
+  let current = files[0]?.path ?? "";
   try {
-    for (const file of files) written.push({ temporary: await writeTemporary(file), path: file.path });
-    for (const entry of written) await rename(entry.temporary, entry.path);
+    for (const file of files) {
+      current = file.path;
+      written.push({ temporary: await writeTemporary(file), path: file.path });
+    }
+    for (const entry of written) {
+      current = entry.path;
+      const backup = await keepOld(entry.path);
+      try {
+        await rename(entry.temporary, entry.path);
+      } catch (error) {
+        if (backup !== null) await unlink(backup).catch(() => undefined);
+        throw error;
+      }
+      placed.push({ path: entry.path, backup });
+    }
   } catch (error) {
+    for (const entry of placed.reverse()) {
+      if (entry.backup === null) await unlink(entry.path).catch(() => undefined);
+      else await rename(entry.backup, entry.path).catch(() => undefined);
+    }
     await Promise.all(written.map((entry) => unlink(entry.temporary).catch(() => undefined)));
-    throw error;
+    throw new OutputPathError(current, reasonOf(error, current));
   }
+  await Promise.all(placed.map((entry) => (entry.backup === null ? undefined : unlink(entry.backup).catch(() => undefined))));
 }
 
 /**
@@ -60,7 +213,7 @@ export async function writeFilesAtomic(files: readonly FileToWrite[]): Promise<v
  * @param path - target path; its folder must exist.
  * @param data - the contents.
  * @returns when the file is in place.
- * @throws the file-system error; the target is unchanged and no temporary file remains.
+ * @throws OutputPathError; the target is unchanged and no temporary file remains.
  * @example
  * await writeFileAtomic("out.pdf", bytes);
  */

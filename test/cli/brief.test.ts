@@ -1,17 +1,18 @@
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
+import { join, relative, resolve } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runCalibration } from "../../src/calibrate/runCalibration.js";
 import { runBrief } from "../../src/cli/brief.js";
 import { UsageError } from "../../src/cli/errors.js";
-import { writeFilesAtomic } from "../../src/cli/writeFileAtomic.js";
+import { checkOutputTargets, OutputPathError, writeFilesAtomic } from "../../src/cli/writeFileAtomic.js";
 import { buildOutlook } from "../../src/outlook/buildOutlook.js";
 import { formatPercent } from "../../src/outlook/describeChance.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
 import { InputError } from "../../src/workspace/InputError.js";
 import { loadWorkspace } from "../../src/workspace/loadWorkspace.js";
 import { flatText, pdfPageTexts } from "../briefing/pdfText.js";
+import { runInProcess } from "./helpers.js";
 import { SAMPLE_SAFETY_MARKDOWN } from "../briefing/sampleBriefingInputs.js";
 
 const DEMO = resolve("demo-region");
@@ -82,6 +83,61 @@ describe("runBrief(region, options, context)", () => {
   });
 });
 
+describe("runBrief(region, { out, html }, context): output safety", () => {
+  it("--out x.pdf --html x.pdf is a usage error before any work, and writes nothing", async () => {
+    const out = join(work, "same-out");
+    mkdirSync(out);
+    await expect(runBrief(DEMO, { out: "x.pdf", html: "./x.pdf" }, { ...context(), cwd: out })).rejects.toThrow(
+      /--out and --html name the same file/,
+    );
+    expect(readdirSync(out)).toEqual([]);
+  });
+
+  it("--out in a missing folder is 'cannot write <path>: the folder … does not exist' (no temporary name)", async () => {
+    const out = join(work, "missing-out");
+    mkdirSync(out);
+    const error: unknown = await runBrief(DEMO, { out: join(out, "nope", "x.pdf") }, context()).catch((caught: unknown) => caught);
+    expect(error).toBeInstanceOf(UsageError);
+    expect((error as Error).message).toBe(`cannot write ${join(out, "nope", "x.pdf")}: the folder ${join(out, "nope")} does not exist`);
+    expect((error as Error).message).not.toMatch(/\.tmp|internal/);
+    expect(readdirSync(out)).toEqual([]);
+  });
+
+  it("--html naming an existing folder is 'cannot write <path>: it is a folder', and no PDF is left", async () => {
+    const out = join(work, "folder-out");
+    mkdirSync(join(out, "page.html"), { recursive: true });
+    await expect(runBrief(DEMO, { out: join(out, "x.pdf"), html: join(out, "page.html") }, context())).rejects.toThrow(
+      new UsageError(`cannot write ${join(out, "page.html")}: it is a folder`),
+    );
+    expect(readdirSync(out)).toEqual(["page.html"]);
+  });
+
+  it("names region files as typed (relative) in input errors when run in the process's folder", async () => {
+    const region = join(work, "relative-region");
+    mkdirSync(region);
+    writeFileSync(join(region, "region.json"), '{ "name": "Bad", "unknownKey": 1 }');
+    const typed = relative(process.cwd(), region);
+    const error: unknown = await runBrief(typed, { out: join(work, "relative.pdf") }, { ...context(), cwd: process.cwd() }).catch((caught: unknown) => caught);
+    expect(error).toBeInstanceOf(InputError);
+    const files = (error as InputError).problems.map((problem) => problem.file);
+    expect(files).toContain(join(typed, "region.json"));
+    expect(files.every((file) => !file.startsWith("/"))).toBe(true);
+  });
+});
+
+describe("firephase brief (in process)", () => {
+  it("prints the PDF path on stdout and each outlook warning as 'note: …' on stderr", async () => {
+    const out = join(work, "notes-out");
+    mkdirSync(out);
+    const pdf = join(out, "notes.pdf");
+    const run = await runInProcess(["brief", DEMO, "--values", "ENSO=40", "--out", pdf]);
+    expect(run.code).toBe(0);
+    expect(run.stdout).toBe(`${pdf}\n`);
+    expect(run.stderr).toMatch(/^note: ENSO = 40 is \d+\.\d standard deviations from its calibration mean/m);
+    expect(existsSync(pdf)).toBe(true);
+  });
+});
+
 describe("writeFilesAtomic(files)", () => {
   it("writes every file or none, and leaves no temporary file after a failure", async () => {
     const folder = join(work, "atomic");
@@ -93,8 +149,57 @@ describe("writeFilesAtomic(files)", () => {
         { path: join(folder, "b.txt"), data: "B" },
         { path: join(folder, "missing-folder", "c.txt"), data: "C" },
       ]),
-    ).rejects.toThrow(/ENOENT/);
+    ).rejects.toThrow(new OutputPathError(join(folder, "missing-folder", "c.txt"), `the folder ${join(folder, "missing-folder")} does not exist`));
     expect(readdirSync(folder)).toEqual(["a.txt"]);
     expect(existsSync(join(folder, "b.txt"))).toBe(false);
+  });
+
+  it("removes the first file again when renaming the second fails (the second target is a folder)", async () => {
+    const folder = join(work, "atomic-rename");
+    mkdirSync(join(folder, "b.html", "inside"), { recursive: true });
+    const error: unknown = await writeFilesAtomic([
+      { path: join(folder, "a.pdf"), data: "new PDF" },
+      { path: join(folder, "b.html"), data: "HTML" },
+    ]).catch((caught: unknown) => caught);
+    expect(error).toBeInstanceOf(OutputPathError);
+    expect((error as OutputPathError).path).toBe(join(folder, "b.html"));
+    expect((error as Error).message).not.toMatch(/\.tmp/);
+    expect(readdirSync(folder)).toEqual(["b.html"]);
+  });
+
+  it("restores the old first file when renaming the second fails", async () => {
+    const folder = join(work, "atomic-restore");
+    mkdirSync(join(folder, "b.html", "inside"), { recursive: true });
+    writeFileSync(join(folder, "a.pdf"), "old PDF");
+    await expect(
+      writeFilesAtomic([
+        { path: join(folder, "a.pdf"), data: "new PDF" },
+        { path: join(folder, "b.html"), data: "HTML" },
+      ]),
+    ).rejects.toThrow(OutputPathError);
+    expect(readFileSync(join(folder, "a.pdf"), "utf8")).toBe("old PDF");
+    expect(readdirSync(folder).sort()).toEqual(["a.pdf", "b.html"]);
+  });
+
+  it("replaces an existing file and leaves no side file on success", async () => {
+    const folder = join(work, "atomic-replace");
+    mkdirSync(folder);
+    writeFileSync(join(folder, "a.pdf"), "old");
+    await writeFilesAtomic([{ path: join(folder, "a.pdf"), data: "new" }]);
+    expect(readFileSync(join(folder, "a.pdf"), "utf8")).toBe("new");
+    expect(readdirSync(folder)).toEqual(["a.pdf"]);
+  });
+});
+
+describe("checkOutputTargets(paths)", () => {
+  it("refuses a path named twice, a missing folder, a folder as target and a file used as folder", async () => {
+    const folder = join(work, "targets");
+    mkdirSync(join(folder, "sub"), { recursive: true });
+    writeFileSync(join(folder, "plain.txt"), "x");
+    await expect(checkOutputTargets([join(folder, "a.pdf"), join(folder, "b.html")])).resolves.toBeUndefined();
+    await expect(checkOutputTargets([join(folder, "a.pdf"), join(folder, "sub", "..", "a.pdf")])).rejects.toThrow(/it is named twice/);
+    await expect(checkOutputTargets([join(folder, "no", "a.pdf")])).rejects.toThrow(`the folder ${join(folder, "no")} does not exist`);
+    await expect(checkOutputTargets([join(folder, "sub")])).rejects.toThrow(`cannot write ${join(folder, "sub")}: it is a folder`);
+    await expect(checkOutputTargets([join(folder, "plain.txt", "a.pdf")])).rejects.toThrow(`${join(folder, "plain.txt")} is not a folder`);
   });
 });
