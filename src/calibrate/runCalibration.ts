@@ -1,5 +1,7 @@
 import { closeSitePairs } from "../record/closeSitePairs.js";
 import { compositeFireRecord } from "../record/composite.js";
+import { InputError } from "../workspace/InputError.js";
+import { join } from "node:path";
 import { benjaminiHochberg } from "../stats/benjaminiHochberg.js";
 import { meanAndStandardDeviation } from "../stats/meanAndStandardDeviation.js";
 import type { Workspace } from "../workspace/types.js";
@@ -42,6 +44,15 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
   });
   const method = settings.methods.interval;
   const n = period.years.length;
+  if (n === 0) {
+    const where =
+      settings.calibration === null
+        ? `the fire record's usable years (at least ${settings.fireYears.minSitesRecording} recording sites) and the index years do not overlap`
+        : `no year of calibration ${settings.calibration.first}–${settings.calibration.last} has at least ${settings.fireYears.minSitesRecording} recording sites in the fire record`;
+    throw new InputError([
+      { file: join(workspace.shownRoot ?? workspace.root, "region.json"), line: null, message: `no calibration years: ${where}` },
+    ]);
+  }
   const baseRate = proportionEstimate(training.fireYears.years.length, n, method);
   const warnings: { code: string; message: string }[] = [];
   const thinInPeriod = record.thinYears.filter((year) => year >= period.first && year <= period.last);
@@ -59,6 +70,14 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
         message: `sites ${pair.a} and ${pair.b} are ${pair.distanceKm.toFixed(1)} km apart, closer than ${limit} km: their fire years may not be independent evidence`,
       });
     }
+  }
+  if (training.fireYears.years.length === 0) {
+    warnings.push({ code: "no-fire-years", message: "no calibration year had any fire recorded: every odds estimate is 0 and says nothing about this season" });
+  } else if (training.fireYears.realisedShare > 2 * settings.fireYears.top) {
+    warnings.push({
+      code: "many-tied-fire-years",
+      message: `${training.fireYears.years.length} of ${n} calibration years tie at or above the fire-year threshold (${Math.round(training.fireYears.realisedShare * 100)}%, asked for the top ${Math.round(settings.fireYears.top * 100)}%): fire years are not rare here, so read the odds with that in mind`,
+    });
   }
   if (n < 50) {
     warnings.push({ code: "short-record", message: `only ${n} calibration years: every estimate is uncertain` });

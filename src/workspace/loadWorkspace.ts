@@ -54,7 +54,9 @@ async function readInputFile(absolute: string, problems: ProblemList): Promise<L
  * const workspace = await loadWorkspace("demo-region");
  * workspace.settings.methods.independenceKm; // => 40 unless region.json sets it
  */
-export async function loadWorkspace(root: string): Promise<Workspace> {
+export async function loadWorkspace(given: string): Promise<Workspace> {
+  // A path to region.json itself is taken as its folder (an easy slip on the command line).
+  const root = path.basename(given) === REGION_FILE ? path.dirname(given) : given;
   const absoluteRoot = path.resolve(root);
   const shown = (relative: string): string => path.join(root, relative);
   const regionProblems = new ProblemList(shown(REGION_FILE));
@@ -138,6 +140,7 @@ export async function loadWorkspace(root: string): Promise<Workspace> {
   if (problems.length > 0) throw new InputError(problems);
   return {
     root: absoluteRoot,
+    shownRoot: root,
     settings,
     fireRecord,
     modern,

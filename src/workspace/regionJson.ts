@@ -18,12 +18,12 @@ export interface RegionFileNames {
 const INDEX_NAME = /^[A-Za-z][A-Za-z0-9_.-]*$/;
 
 const fileName = z.string().trim().min(1, { error: "must be a file name" });
-const year = z.number().int();
+const year = z.number().int().min(-9999, { error: "must be a year from -9999 to 9999" }).max(9999, { error: "must be a year from -9999 to 9999" });
 const integer = (minimum: number) => z.number().int().min(minimum);
 
 const calibrationSchema = z
   .strictObject({ first: year, last: year })
-  .refine((c) => c.first <= c.last, { error: "first must not be after last", path: ["last"] });
+  .refine((c) => c.first <= c.last, { error: "must not be before calibration.first", path: ["last"] });
 
 const fireRecordSchema = z
   .strictObject({
@@ -100,7 +100,7 @@ const methodsSchema = z
     interval: z.enum(["wilson", "jeffreys"]).optional(),
     seaFirstLag: z.number().int().optional(),
     seaLastLag: z.number().int().optional(),
-    seaDraws: integer(1000).optional(),
+    seaDraws: integer(1000).max(1_000_000, { error: "must be at most 1000000" }).optional(),
     blockYears: integer(1).optional(),
     blockMaxLag: integer(0).optional(),
     stabilityWindow: integer(2).optional(),

@@ -127,6 +127,8 @@ export type FireRecordInput =
 export interface Workspace {
   /** Absolute path of the region folder. */
   readonly root: string;
+  /** The region folder as the user gave it, for messages (`file:line` paths); defaults to `root`. */
+  readonly shownRoot?: string;
   readonly settings: RegionSettings;
   readonly fireRecord: FireRecordInput;
   readonly modern: readonly ModernFireRow[] | null;

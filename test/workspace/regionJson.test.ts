@@ -127,7 +127,7 @@ describe("parseRegionJson(text, file)", () => {
 
   it("reports a calibration period whose first year is after its last", () => {
     expect(problems({ ...minimal, calibration: { first: 1990, last: 1700 } })).toEqual([
-      { file: "region.json", line: 22, message: '"calibration.last" first must not be after last' },
+      { file: "region.json", line: 22, message: '"calibration.last" must not be before calibration.first (found 1700)' },
     ]);
   });
 
@@ -209,5 +209,27 @@ describe("didYouMean(unknown, known)", () => {
     expect(didYouMean("INDEPENDENCEKM", ["independenceKm"])).toBe("independenceKm");
     expect(didYouMean("colour", ["name", "seed"])).toBeNull();
     expect(didYouMean("E", ["A", "B"])).toBeNull();
+  });
+});
+
+describe("parseRegionJson(text, file) limits", () => {
+  it("rejects calibration years beyond ±9999 and more than a million random draws", () => {
+    const text = JSON.stringify({
+      name: "x",
+      calibration: { first: -1e15, last: 1700 },
+      fireRecord: { activity: "a.csv" },
+      indices: { E: { file: "i.csv", cuts: [0], labels: ["lo", "hi"] } },
+      methods: { seaDraws: 1e9 },
+    });
+    let problems: readonly { message: string }[] = [];
+    try {
+      parseRegionJson(text, "region.json");
+    } catch (error) {
+      problems = (error as InputError).problems;
+    }
+    expect(problems.map((p) => p.message)).toEqual([
+      expect.stringMatching(/"calibration.first" must be at least -9999/),
+      expect.stringMatching(/"methods.seaDraws" must be at most 1000000/),
+    ]);
   });
 });
