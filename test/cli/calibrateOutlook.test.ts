@@ -1,4 +1,7 @@
 import { spawnSync } from "node:child_process";
+import { cpSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 
@@ -27,6 +30,26 @@ describe("firephase calibrate demo-region", () => {
     expect(json.schema).toBe("firephase.calibration/1");
     expect(json.period).toEqual({ first: 1700, last: 1990, years: 291 });
     expect(json.indices.ENSO.sea.draws).toBe(10000);
+  });
+});
+
+describe("firephase calibrate with unusable settings", () => {
+  it("exits 1 with a region.json message when no calibration year is usable", () => {
+    const folder = join(mkdtempSync(join(tmpdir(), "firephase-cal-")), "region");
+    cpSync(join(root, "demo-region"), folder, { recursive: true });
+    const region = JSON.parse(readFileSync(join(folder, "region.json"), "utf8"));
+    region.calibration = { first: 1200, last: 1300 };
+    writeFileSync(join(folder, "region.json"), JSON.stringify(region, null, 2));
+    const run = firephase("calibrate", folder);
+    expect(run.code).toBe(1);
+    expect(run.stderr).toBe(`${join(folder, "region.json")}: no calibration years: no year of calibration 1200–1300 has at least 3 recording sites in the fire record\n`);
+    expect(run.stdout).toBe("");
+  });
+
+  it("takes a path to region.json as its folder", () => {
+    const run = firephase("calibrate", "demo-region/region.json", "--json");
+    expect(run.code).toBe(0);
+    expect(JSON.parse(run.stdout).region.name).toMatch(/demo/);
   });
 });
 
