@@ -4,10 +4,10 @@ import { haversineDistance } from "../../src/record/haversineDistance.js";
 
 // The four sites of test/fixtures/regions/valid.
 const SITES = Object.freeze([
-  { id: "A", latitude: 45.0, longitude: -110.0 },
-  { id: "B", latitude: 45.1, longitude: -110.0 },
-  { id: "C", latitude: 46.0, longitude: -111.0 },
-  { id: "D", latitude: 44.0, longitude: -109.0 },
+  { id: "A", latitude: 45.0, longitude: -140.0 },
+  { id: "B", latitude: 45.1, longitude: -140.0 },
+  { id: "C", latitude: 46.0, longitude: -141.0 },
+  { id: "D", latitude: 44.0, longitude: -139.0 },
 ]);
 
 describe("closeSitePairs(sites, thresholdKm)", () => {

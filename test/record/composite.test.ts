@@ -3,7 +3,7 @@ import { compositeFireRecord } from "../../src/record/composite.js";
 import { summarizeSampleDepth } from "../../src/record/sampleDepth.js";
 import type { FireRecordInput, Site } from "../../src/workspace/types.js";
 
-const site = (id: string, firstYear: number, lastYear: number): Site => ({ id, name: null, latitude: 45, longitude: -110, firstYear, lastYear });
+const site = (id: string, firstYear: number, lastYear: number): Site => ({ id, name: null, latitude: 45, longitude: -140, firstYear, lastYear });
 
 /**
  * The 4-site example of test/fixtures/regions/valid, counted by hand:

@@ -33,7 +33,7 @@ describe("loadWorkspace(root) on a valid region", () => {
     expect(workspace.settings.indices[1]?.phases).toEqual({ kind: "terciles", labels: ["low", "middle", "high"] });
     if (workspace.fireRecord.kind !== "sites") throw new Error("expected sites");
     expect(workspace.fireRecord.sites.map((s) => s.id)).toEqual(["A", "B", "C", "D"]);
-    expect(workspace.fireRecord.sites[0]).toEqual({ id: "A", name: "North Rim", latitude: 45, longitude: -110, firstYear: 1700, lastYear: 1710 });
+    expect(workspace.fireRecord.sites[0]).toEqual({ id: "A", name: "Upper Bench", latitude: 45, longitude: -140, firstYear: 1700, lastYear: 1710 });
     expect(workspace.fireRecord.events).toHaveLength(10);
     expect(workspace.modern).toBeNull();
   });
@@ -79,7 +79,7 @@ describe("loadWorkspace(root) on a valid region", () => {
   it("accepts a BOM, CRLF line ends and quoted fields with commas and doubled quotes", async () => {
     const workspace = await loadWorkspace(region("bom-crlf-quoted"));
     if (workspace.fireRecord.kind !== "sites") throw new Error("expected sites");
-    expect(workspace.fireRecord.sites.map((s) => s.name)).toEqual(["North Rim", "North Rim, Saddle", 'Cedar "Old" Bench', "Dry Fork"]);
+    expect(workspace.fireRecord.sites.map((s) => s.name)).toEqual(["Upper Bench", "Upper Bench, Col", 'Long "Old" Terrace', "Lower Flat"]);
     expect(workspace.fireRecord.events).toHaveLength(10);
   });
 
