@@ -13,7 +13,7 @@ export interface ForecastCell {
 }
 
 /**
- * Chooses the past years a forecast is read from (DESIGN.md, Outlook):
+ * Chooses the past years a forecast is read from (README, "outlook"):
  * the joint phase of the two indices with the strongest calibrated association (smallest chi-square
  * p) when that joint cell holds at least `jointMinYears` training years; otherwise the current phase
  * of the single strongest index that has at least one training year in that phase; with no current

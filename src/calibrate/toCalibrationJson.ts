@@ -1,6 +1,6 @@
 import type { Calibration } from "./types.js";
 
-/** Schema name of `firephase calibrate --json` (DESIGN.md, promised interface). */
+/** Schema name of `firephase calibrate --json` (promised interface, README "JSON output"). */
 export const CALIBRATION_SCHEMA = "firephase.calibration/1";
 
 /**

@@ -1,6 +1,6 @@
 /**
  * The Calibration record: how each index phase has shifted the odds of a fire year in the
- * calibration period. Its JSON form (`toCalibrationJson`) is a promised interface (DESIGN.md).
+ * calibration period. Its JSON form (`toCalibrationJson`) is a promised interface (README "JSON output").
  * A statistic that cannot be computed is `null` with a `reason` beside it.
  */
 import type { FireYearSelection, ActivityCategories } from "../record/types.js";

@@ -181,7 +181,8 @@ export function formatCheckReport(report: CheckReport): string {
       : `Fire record: composited activity, ${depth.events} site-years burned, ${span(depth.firstYear, depth.lastYear)}`,
   );
   out.push(
-    `Usable years (at least ${record.minSitesRecording} sites recording): ${depth.usableYears}, ${span(depth.firstUsableYear, depth.lastUsableYear)}` +
+    `Usable years (at least ${record.minSitesRecording} sites recording): ${depth.usableYears}` +
+      (depth.firstUsableYear === null || depth.lastUsableYear === null ? "" : ` between ${depth.firstUsableYear} and ${depth.lastUsableYear}`) +
       (depth.thinYears > 0 ? `; ${depth.thinYears} thin years left out` : "") +
       (depth.gapYears > 0 ? `; ${depth.gapYears} years with no recording site` : ""),
   );

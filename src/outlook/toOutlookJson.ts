@@ -1,6 +1,6 @@
 import type { Outlook } from "./types.js";
 
-/** Schema name of `firephase outlook --json` (DESIGN.md, promised interface). */
+/** Schema name of `firephase outlook --json` (promised interface, README "JSON output"). */
 export const OUTLOOK_SCHEMA = "firephase.outlook/1";
 
 /**

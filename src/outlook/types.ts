@@ -1,4 +1,4 @@
-/** The current-season Outlook and its JSON form (promised interface, DESIGN.md). */
+/** The current-season Outlook and its JSON form (promised interface, README "JSON output"). */
 import type { ProbabilityEstimate } from "../calibrate/types.js";
 import type { Skill } from "../hindcast/types.js";
 

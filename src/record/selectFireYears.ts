@@ -3,7 +3,7 @@ import type { FireYearSelection } from "./types.js";
 /**
  * Fire years: the years of highest fire activity, the top `top` share of the calibration years.
  *
- * Rule (DESIGN.md, common practice in fire-history compositing): rank the N calibration years by
+ * Rule (README, "calibrate"; common practice in fire-history compositing): rank the N calibration years by
  * activity; the threshold is the activity of the ceil(top × N)-th highest year; every year with
  * activity ≥ threshold and activity > 0 is a fire year. Ties at the threshold are all in, so the
  * realised share can exceed `top`; it is reported beside the selection.

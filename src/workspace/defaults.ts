@@ -2,7 +2,7 @@ import type { FireYearSettings, MethodSettings } from "./types.js";
 
 /**
  * Method settings used when region.json leaves `methods` (or one of its keys) out. Each value is
- * described in {@link MethodSettings}; DESIGN.md ("Methods") gives the reasoning.
+ * described in {@link MethodSettings}; the README ("Commands") gives the reasoning.
  */
 export const DEFAULT_METHODS: MethodSettings = Object.freeze({
   interval: "wilson",

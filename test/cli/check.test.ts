@@ -14,7 +14,7 @@ describe("firephase check <region> (in process)", () => {
     expect(run.code).toBe(0);
     expect(run.stdout).toContain("Region: Test Ridge — A tiny invented region for tests");
     expect(run.stdout).toContain("Fire record: 4 sites, 10 fire events (site-years), 1700–1710 (11 years)");
-    expect(run.stdout).toContain("Usable years (at least 3 sites recording): 9, 1702–1710 (9 years); 2 thin years left out");
+    expect(run.stdout).toContain("Usable years (at least 3 sites recording): 9 between 1702 and 1710; 2 thin years left out");
     expect(run.stdout).toMatch(/ENSO\s+yearly\s+indices\.csv\s+14\s+1698–1712\s+1\s+1702–1710 \(8 years\)/); // ENSO is missing in 1703
     expect(run.stdout).toMatch(/NAO\s+Dec-Mar\s+nao-monthly\.csv\s+9\s+1701–1710\s+1\s+1702–1710 \(8 years\)/);
     expect(run.stdout).toContain("Warnings: 5 (listed on stderr)");
