@@ -5,7 +5,7 @@
  */
 import type { Calibration, IndexCalibration, ProbabilityEstimate } from "../calibrate/types.js";
 import type { Outlook } from "../outlook/types.js";
-import { describeChance, formatPercent, formatPercentRange, headline as headlineSentence } from "../outlook/describeChance.js";
+import { comparisonSentence, describeChance, formatPercent, formatPercentRange, headline as headlineSentence } from "../outlook/describeChance.js";
 import { compositeFireRecord } from "../record/composite.js";
 import type { Workspace } from "../workspace/types.js";
 import { sep } from "node:path";
@@ -81,12 +81,13 @@ export interface BriefingView {
     readonly sentence: string;
     readonly chance: ProbabilityText;
     readonly base: ProbabilityText;
+    /** Whether this season differs from an average year beyond the uncertainty, in words (plus the ratio when it does). */
     readonly comparison: string;
     readonly basis: string;
     readonly definition: string;
   };
   readonly categories: {
-    readonly rows: readonly { readonly label: string; readonly chance: ProbabilityText }[];
+    readonly rows: readonly { readonly label: string; readonly chance: ProbabilityText; readonly averageYear: string }[];
     readonly note: string;
     readonly chart: TrustedMarkup;
   };
@@ -98,17 +99,22 @@ export interface BriefingView {
       readonly zText: string;
       readonly nearBoundary: boolean;
       readonly note: string;
+      /** Where the value came from, e.g. "region.json", "--values". */
+      readonly source: string;
     }[];
     readonly missingText: string | null;
   };
   readonly skill: {
+    /** False when no current index values were given: the outlook is the average year and no skill score applies. */
+    readonly applies: boolean;
     readonly hasSkill: boolean;
     readonly title: string;
     readonly verdict: string;
     readonly summary: string;
   };
   readonly cautions: readonly string[];
-  readonly outlookNotes: readonly string[];
+  /** The outlook's plain-language warnings, shown in the "Read with care" box on page 1. */
+  readonly readWithCare: readonly string[];
   readonly indices: readonly IndexView[];
   readonly analogs: {
     readonly available: boolean;
@@ -208,6 +214,14 @@ function probabilityText(estimate: ProbabilityEstimate): ProbabilityText {
   return { available: true, percent: formatPercent(estimate.estimate), interval, range, words: describeChance(estimate.estimate), missingText: null };
 }
 
+/** Text as one sentence: first letter capital, exactly one closing full stop (or ? / !). */
+function sentence(text: string): string {
+  const trimmed = text.trim().replace(/[;,:]+$/, "");
+  if (trimmed === "") return "";
+  const capital = trimmed.charAt(0).toUpperCase() + trimmed.slice(1);
+  return /[.!?]$/.test(capital) ? capital : `${capital}.`;
+}
+
 function signed(value: number, digits: number): string {
   const text = formatDecimal(value, digits);
   return value > 0 && !/^0\.?0*$/.test(text) ? `+${text}` : text;
@@ -290,7 +304,7 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
   const testText =
     contingency.chiSquare === null || contingency.pValue === null
       ? `Chi-square test: ${missing(contingency.reason)}.`
-      : `Chi-square test of fire years by phase: X² = ${formatDecimal(contingency.chiSquare, 2)}, df = ${contingency.df}, ` +
+      : `Chi-square test of high-fire years by phase: X² = ${formatDecimal(contingency.chiSquare, 2)}, df = ${contingency.df}, ` +
         pEquals("p", contingency.pValue) +
         (contingency.qValue === null ? "" : `, false discovery rate ${pEquals("q", contingency.qValue)} across all indices`) +
         "." +
@@ -377,9 +391,8 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
       missingText: seaAvailable ? null : missing(sea.reason),
       chart: trustSvg(seaChartSvg),
       caption:
-        `Mean ${index.name} departure in the years around ${plural(sea.eventYears.length, "fire year", "fire years")} (lag 0 = fire year). ` +
-        `Limits: ${formatCount(sea.draws)} random draws of the same number of years from ${formatCount(sea.poolYears)} years whose whole window is covered ` +
-        `(seed ${sea.seed}; ${sea.sampling}; baseline: ${sea.baseline}; ${sea.percentileRule}).`,
+        `Mean ${index.name} departure in the years around ${plural(sea.eventYears.length, "high-fire year", "high-fire years")} (lag 0 = the high-fire year); ` +
+        "the limits show how far chance alone goes (random years; settings in Appendix A).",
       outsideText:
         !seaAvailable
           ? ""
@@ -398,8 +411,8 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
     stability: {
       chart: trustSvg(stabilitySvg),
       caption:
-        `Chance of a fire year by ${index.name} phase in moving windows of ${stability.window} years, step ${stability.step} years ` +
-        `(${plural(stability.windows.length, "window", "windows")}); a link that holds through time stays on the same side of the base rate.`,
+        `Chance of a high-fire year by ${index.name} phase in moving windows of ${stability.window} years, step ${stability.step} years ` +
+        `(${plural(stability.windows.length, "window", "windows")}); a link that holds through time stays on the same side of the average year.`,
     },
   };
 }
@@ -453,6 +466,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
 
   const skill = outlook.hindcast;
   const hindcastAvailable = skill.brierScore !== null;
+  // With no current index values the outlook is the average year itself; the outlook's verdict says so.
+  const skillApplies = outlook.current.length > 0;
 
   const analogNames = calibration.indices.map((index) => index.name);
   const analogFireCount = outlook.analogs.filter((analog) => analog.fireYear).length;
@@ -488,7 +503,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       title: `Phase space: ${xIndex.name} and ${yIndex.name}`,
       caption:
         `Each point is a calibration year (${period.first}–${period.last}) placed by its ${xIndex.name} and ${yIndex.name} values; ` +
-        `fire years are marked, dashed lines are the phase boundaries` +
+        `high-fire years are marked, dashed lines are the phase boundaries` +
         (currentX !== undefined && currentY !== undefined ? ", and the large marker is this season." : "; this season lacks one of the two values."),
       chart: trustSvg(
         phaseSpaceScatter({
@@ -540,8 +555,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     {
       label: "Activity categories",
       value:
-        `terciles of calibration-period activity (${calibration.categories.quantileRule}); ${calibration.categories.tieRule}; ` +
-        `realised shares below ${formatPercent(shares.below)}, near ${formatPercent(shares.near)}, above ${formatPercent(shares.above)}`,
+        `terciles of calibration-period activity (${calibration.categories.quantileRule}). ${sentence(calibration.categories.tieRule)} ` +
+        `Realised shares: below ${formatPercent(shares.below)}, near ${formatPercent(shares.near)}, above ${formatPercent(shares.above)}.`,
     },
     { label: "Interval for a proportion", value: calibration.interval === "wilson" ? "Wilson score, 95%, no continuity correction" : "Jeffreys, 95% equal-tailed" },
     { label: "Small-sample flag", value: `a phase with fewer than ${methods.smallSampleYears} calibration years` },
@@ -577,7 +592,10 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       sentence: chance.available ? headlineSentence(outlook.fireYear, outlook.baseRate) : `Chance of a high-fire year: ${chance.missingText ?? NOT_ENOUGH_DATA}.`,
       chance,
       base,
-      comparison: chanceComparison(outlook.fireYear.estimate, outlook.baseRate.estimate),
+      comparison:
+        outlook.fireYear.comparedWithBase === "not distinguishable"
+          ? comparisonSentence(outlook.fireYear, outlook.baseRate)
+          : `${comparisonSentence(outlook.fireYear, outlook.baseRate)} ${chanceComparison(outlook.fireYear.estimate, outlook.baseRate.estimate)}`.trim(),
       basis:
         `Based on ${outlook.fireYear.basis}: ${plural(outlook.fireYear.fireYears, "high-fire year", "high-fire years")} ` +
         `in ${plural(outlook.fireYear.years, "past year", "past years")} with the same phase${outlook.fireYear.basisIndices.length > 1 ? "s" : ""}.`,
@@ -586,15 +604,19 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         `(${fireYearCount} of ${calibration.fireYears.calibrationYears} years).`,
     },
     categories: {
-      rows: categoryKeys.map(([key, label]) => ({ label, chance: probabilityText(outlook.categories[key]) })),
+      rows: categoryKeys.map(([key, label]) => ({ label, chance: probabilityText(outlook.categories[key]), averageYear: formatPercent(shares[key]) })),
       note:
-        `Categories are terciles of ${period.first}–${period.last} fire activity: in an average year each has about a 1 in 3 chance ` +
-        `(realised ${formatPercent(shares.below)} / ${formatPercent(shares.near)} / ${formatPercent(shares.above)}).`,
+        `Categories split ${period.first}–${period.last} fire activity at its terciles. An average year of that period was below normal ` +
+        `${formatPercent(shares.below)} of the time, near ${formatPercent(shares.near)}, above ${formatPercent(shares.above)} (the diamonds)` +
+        (Math.max(Math.abs(shares.below - 1 / 3), Math.abs(shares.near - 1 / 3), Math.abs(shares.above - 1 / 3)) > 0.02
+          ? ": years with equal activity (often no fire) stay in one category, so the shares are not a third each."
+          : "."),
       chart: trustSvg(
         categoryOddsBar({
           below: outlook.categories.below,
           near: outlook.categories.near,
           above: outlook.categories.above,
+          averageYear: { below: shares.below, near: shares.near, above: shares.above },
         }),
       ),
     },
@@ -605,6 +627,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         phase: phase.label,
         zText: phase.z !== null && Number.isFinite(phase.z) ? `${signed(phase.z, 1)} SD from the ${period.first}–${period.last} mean` : "distance from the mean not computable (the index does not vary)",
         nearBoundary: phase.nearBoundary,
+        source: phase.source,
         note: phase.nearBoundary
           ? `near a phase boundary (within ${formatDecimal(methods.nearBoundaryMargin, 2)}): a small change would change the phase`
           : "",
@@ -612,8 +635,13 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       missingText: outlook.missing.length === 0 ? null : `No value for this season, left out: ${outlook.missing.join(", ")}.`,
     },
     skill: {
+      applies: skillApplies,
       hasSkill: skill.hasSkill,
-      title: skill.hasSkill ? "Hindcast: the method showed some skill" : "Hindcast: the method showed no skill",
+      title: !skillApplies
+        ? "Hindcast: does not apply to average-year odds"
+        : skill.hasSkill
+          ? "Hindcast: the method showed some skill"
+          : "Hindcast: the method showed no skill",
       verdict: skill.verdict,
       summary: hindcastAvailable
         ? `Tested on ${plural(skill.years, "past year", "past years")}, each forecast without itself and ${skill.exclusion} years either side: ` +
@@ -627,7 +655,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       `The odds describe ${period.first}–${period.last}; land use, fire suppression and climate have changed since, so the past may not repeat.`,
       "Even at higher odds most seasons are not high-fire years, and a quiet outlook does not mean a quiet season.",
     ],
-    outlookNotes: outlook.warnings.map((warning) => warning.message),
+    readWithCare: outlook.warnings.map((warning) => sentence(warning.message)),
     indices: calibration.indices.map((index) => buildIndexView(index, calibration, outlook)),
     analogs: {
       available: outlook.analogs.length > 0,
@@ -669,8 +697,9 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         }),
       ),
       caption:
-        `Fire activity per year (${measureWords}) with the fire-year threshold, and the sample depth (sites recording) on the right axis. ` +
-        `The shaded span is the calibration period; years with fewer than ${settings.fireYears.minSitesRecording} recording sites are not used.`,
+        `Fire activity per year (${measureWords}) with the high-fire threshold, and the sample depth (sites recording) on the right axis. ` +
+        `High-fire years are chosen only among the calibration years ${period.first}–${period.last} (shaded); years outside it are drawn light grey ` +
+        `and are not used, however active. Years with fewer than ${settings.fireYears.minSitesRecording} recording sites have no bar.`,
     },
     hindcast: {
       available: hindcastAvailable,
@@ -685,7 +714,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
             skill.brierScore === null
               ? NOT_ENOUGH_DATA
               : `${formatDecimal(skill.brierScore, 3)} (average-year odds: ${skill.brierScoreClimatology === null ? NOT_ENOUGH_DATA : formatDecimal(skill.brierScoreClimatology, 3)})`,
-          meaning: "mean squared error of the fire-year chance; lower is better",
+          meaning: "mean squared error of the high-fire-year chance; lower is better",
         },
         {
           score: "Brier skill score",
@@ -703,7 +732,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         {
           score: "Ranked probability skill score",
           value: skill.rpss === null ? NOT_ENOUGH_DATA : signed(skill.rpss, 2),
-          meaning: "above 0: better than one in three for each category",
+          meaning:
+            "above 0: better than always forecasting the average-year shares of the three categories (the realised shares of the years left in for each forecast)",
         },
         {
           score: "ROC area",
@@ -711,14 +741,14 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
             skill.rocArea === null
               ? NOT_ENOUGH_DATA
               : `${formatDecimal(skill.rocArea, 2)}` + (skill.rocStandardError === null ? "" : ` (standard error ${formatDecimal(skill.rocStandardError, 3)})`),
-          meaning: "0.5: no better than chance at telling fire years from others; 1: perfect",
+          meaning: "0.5: no better than chance at telling high-fire years from others; 1: perfect",
         },
         { score: "Years tested", value: formatCount(skill.years), meaning: `each left out with ${skill.exclusion} years either side` },
       ],
       reliabilityChart: trustSvg(reliabilityDiagram({ bins: skill.reliability, climatology: calibration.baseRate.estimate ?? 0 })),
       rocChart: trustSvg(rocCurveChart({ points: skill.rocCurve, area: skill.rocArea })),
       caption:
-        "Reliability: when the method said a given chance, how often a fire year followed (points near the diagonal are reliable). " +
+        "Reliability: when the method said a given chance, how often a high-fire year followed (points near the diagonal are reliable). " +
         "ROC: hit rate against false-alarm rate over all probability thresholds.",
     },
     methods: METHOD_CITATIONS,

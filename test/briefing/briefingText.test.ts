@@ -75,6 +75,23 @@ describe("trustSvg(svg) and trustCss(css)", () => {
       expect(() => trustSvg(bad)).toThrow(RangeError);
     }
   });
+  it("checks only markup: escaped text such as 'phase one = wet' or '&lt;script&gt;' in text and labels passes", () => {
+    const svg =
+      '<svg xmlns="http://www.w3.org/2000/svg" aria-label="ENSO phase one = wet, url(x) javascript:"><title>phase one = wet</title>' +
+      '<text x="1" y="2">phase one = wet &lt;script&gt;alert(1)&lt;/script&gt; url(http://x) href="y"</text></svg>';
+    expect(trustSvg(svg).trustedMarkup).toBe(svg);
+    for (const bad of [
+      '<svg><rect fill="url(http://x/p)"/></svg>',
+      "<svg><!-- <script> --></svg>",
+      "<svg><style>@import 'x.css';</style></svg>",
+      '<svg><use href="other.svg#a"/></svg>',
+      '<svg><g ONCLICK="x()"></g></svg>',
+      "<svg><text>a</text><script>x()</script></svg>",
+      "<svg><rect x=1/></svg>",
+    ]) {
+      expect(() => trustSvg(bad), bad).toThrow(RangeError);
+    }
+  });
   it("refuses CSS that could close the style element or load a resource", () => {
     expect(() => trustCss("</style><script>")).toThrow(RangeError);
     expect(() => trustCss("body{background:url(http://x/y.png)}")).toThrow(RangeError);
@@ -122,7 +139,9 @@ describe("buildBriefingView(inputs)", () => {
   });
   it("states the headline in words against the base rate, with the interval", () => {
     // 17 high-fire years of 83: Wilson 95% 13.2–30.0% (Wilson 1927; computed in the fixture).
-    expect(view.headline.sentence).toBe("About 2 in 10 chance of a high-fire year; in an average year about 1 in 10.");
+    expect(view.headline.sentence).toBe("About 1 in 5 chance of a high-fire year (20%, 95% interval 13–30%); in an average year about 1 in 10 (10%).");
+    // 13.2% > base rate 30/291 = 10.3%: the interval excludes the average year.
+    expect(view.headline.comparison).toBe("The odds are higher than in an average year, beyond their uncertainty. That is about 2.0 times the chance in an average year.");
     expect(view.headline.chance.percent).toBe("20%");
     expect(view.headline.chance.interval).toBe("95% interval 13–30%");
     expect(view.headline.basis).toBe("Based on the ENSO warm phase: 17 high-fire years in 83 past years with the same phase.");
@@ -144,6 +163,89 @@ describe("buildBriefingView(inputs)", () => {
     expect(html).not.toContain("<img src=x");
     expect(html).not.toMatch(/<script/i);
     expect(html).not.toMatch(/(?:src|href)=["']?(?:https?:|file:)/i);
+  });
+  it("shows each category's average-year (realised) share, not one in three", () => {
+    expect(view.categories.rows.map((row) => row.averageYear)).toEqual(["33%", "33%", "33%"]);
+    expect(view.categories.note).toContain("below normal 33% of the time, near 33%, above 33%");
+    expect(view.categories.chart.trustedMarkup).not.toContain("Equal odds");
+    expect(view.categories.chart.trustedMarkup).toContain('class="average-year"');
+    const rpss = view.hindcast.scores.find((score) => score.score === "Ranked probability skill score");
+    expect(rpss?.meaning).toContain("average-year shares of the three categories (the realised shares of the years left in");
+    expect(rpss?.meaning).not.toMatch(/one in three/);
+  });
+  it("says where each current value came from", () => {
+    expect(view.currentPhases.rows.map((row) => row.source)).toEqual(["region.json", "--values"]);
+    const html = renderBriefingHtml(view);
+    expect(html).toContain('<td class="source">--values</td>');
+  });
+  it("puts the outlook's warnings in a 'Read with care' box after the headline and skill, before the cautions", () => {
+    const warned = buildBriefingView({
+      ...sampleBriefingInputs({ outlookWarnings: [{ code: "value-far-outside", message: "ENSO = 40 is 46.5 standard deviations from its calibration mean: check the value" }] }),
+      toolVersion: "0.1.0",
+      safetyMarkdown: SAMPLE_SAFETY_MARKDOWN,
+      paper: "a4",
+    });
+    expect(warned.readWithCare).toEqual(["ENSO = 40 is 46.5 standard deviations from its calibration mean: check the value."]);
+    const html = renderBriefingHtml(warned);
+    const headline = html.indexOf("headline-sentence");
+    const skill = html.indexOf("Hindcast: the method showed some skill");
+    const care = html.indexOf("Read with care");
+    const cautions = html.indexOf('aria-label="Cautions"');
+    expect(headline).toBeGreaterThan(0);
+    expect(skill).toBeGreaterThan(headline);
+    expect(care).toBeGreaterThan(skill);
+    expect(cautions).toBeGreaterThan(care);
+    expect(html.indexOf("46.5 standard deviations")).toBeGreaterThan(care);
+    expect(renderBriefingHtml(view)).not.toContain("Read with care");
+  });
+  it("with no current values, page 1 says the skill score does not apply (not 'no skill')", () => {
+    const average = buildBriefingView({ ...sampleBriefingInputs({ noCurrentValues: true }), toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
+    expect(average.skill.applies).toBe(false);
+    expect(average.skill.title).toBe("Hindcast: does not apply to average-year odds");
+    expect(average.skill.verdict).toContain("a skill score does not apply");
+    const html = renderBriefingHtml(average);
+    expect(html).toContain("skill-na");
+    expect(html).not.toContain("the method showed no skill");
+  });
+  it("joins the tie rule as its own sentence in the settings (no '.;')", () => {
+    const tied = buildBriefingView({
+      ...sampleBriefingInputs({ tieRule: "years with equal activity always fall in one category, so the realised shares differ from one third." }),
+      toolVersion: "0.1.0",
+      safetyMarkdown: "",
+      paper: "a4",
+    });
+    const categories = tied.settings.find((row) => row.label === "Activity categories")?.value ?? "";
+    expect(categories).toBe(
+      "terciles of calibration-period activity (Hyndman & Fan type 7). Years with equal activity always fall in one category, so the realised shares differ from one third. " +
+        "Realised shares: below 33%, near 33%, above 33%.",
+    );
+    expect(categories).not.toMatch(/\.;|;\s*\./);
+  });
+  it("keeps superposed-epoch captions plain: the reading and the lags outside the limits, no seed or draw counts", () => {
+    const enso = view.indices[0];
+    expect(enso?.sea.caption).toBe(
+      "Mean ENSO departure in the years around 30 high-fire years (lag 0 = the high-fire year); the limits show how far chance alone goes (random years; settings in Appendix A).",
+    );
+    expect(enso?.sea.outsideText).toContain("lag 0 (+0.62, p = 0.001, q = 0.01)");
+    expect(enso?.sea.caption).not.toMatch(/seed|10,000|draws|percentile/i);
+    expect(view.settings.find((row) => row.label === "SEA draws and limits")?.value).toContain("percentiles");
+  });
+  it("says the timeline chooses high-fire years only among calibration years", () => {
+    expect(view.timeline.caption).toContain("High-fire years are chosen only among the calibration years 1700–1990");
+    expect(view.timeline.chart.trustedMarkup).toContain("Outside calibration (not used)");
+  });
+  it("renders phase labels that look like attributes or tags: 'phase one = wet' and '<script>' (escaped)", () => {
+    const labelled = buildBriefingView({
+      ...sampleBriefingInputs({ ensoLabels: ["phase one = wet", "<script>", "warm"] }),
+      toolVersion: "0.1.0",
+      safetyMarkdown: "",
+      paper: "a4",
+    });
+    const html = renderBriefingHtml(labelled);
+    expect(html).toContain("phase one = wet");
+    expect(html).toContain("&lt;script&gt;");
+    expect(html).not.toMatch(/<script/i);
+    expect(labelled.indices[0]?.oddsChart.trustedMarkup).toContain("phase one = wet");
   });
   it("prints 'not enough data' and the reason where statistics are null", () => {
     const degenerate = buildBriefingView({ ...sampleBriefingInputs({ degenerate: true }), toolVersion: "0.1.0", safetyMarkdown: "", paper: "letter" });

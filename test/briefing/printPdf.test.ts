@@ -74,7 +74,7 @@ describe("PdfPrinter.print(briefing html)", () => {
     const json = toOutlookJson(inputs.outlook) as { fireYear: { estimate: number } };
     expect(first).toContain(`This season: ${formatPercent(json.fireYear.estimate)}`);
     expect(formatPercent(json.fireYear.estimate)).toBe("20%"); // 17 of 83 in the fixture
-    expect(first).toContain("About 2 in 10 chance of a high-fire year; in an average year about 1 in 10.");
+    expect(first).toContain("About 1 in 5 chance of a high-fire year (20%, 95% interval 13–30%); in an average year about 1 in 10 (10%).");
     expect(first).toContain("Official agency seasonal outlooks and daily fire-danger forecasts come first");
     expect(first).toContain(`page 1 of ${pages.length}`);
     for (const citation of [

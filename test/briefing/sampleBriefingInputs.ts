@@ -17,6 +17,14 @@ export interface SampleOptions {
   readonly noSkill?: boolean;
   /** Every optional statistic null with a reason (the page must say "not enough data"). */
   readonly degenerate?: boolean;
+  /** Phase labels of ENSO (default cold / neutral / warm), e.g. text that looks like markup. */
+  readonly ensoLabels?: readonly [string, string, string];
+  /** No current index values: the outlook is the average year and its verdict says no skill score applies. */
+  readonly noCurrentValues?: boolean;
+  /** The outlook's plain-language warnings. */
+  readonly outlookWarnings?: readonly { readonly code: string; readonly message: string }[];
+  /** A tie rule that ends with a full stop, as the calibration writes it. */
+  readonly tieRule?: string;
 }
 
 export interface SampleBriefingInputs {
@@ -159,7 +167,7 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
   };
 
   const indices = [
-    indexCalibration("ENSO", ["cold", "neutral", "warm"], [[88, 5], [120, 8], [83, 17]], 0.0054),
+    indexCalibration("ENSO", options.ensoLabels ?? ["cold", "neutral", "warm"], [[88, 5], [120, 8], [83, 17]], 0.0054),
     indexCalibration("NAO", ["negative", "neutral", "positive"], [[97, 8], [97, 9], [97, 13]], 0.31),
   ];
   const calibration: Calibration = {
@@ -172,7 +180,7 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
       lowerCut: 0.08,
       upperCut: 0.16,
       quantileRule: "Hyndman & Fan type 7",
-      tieRule: "ties at a cut go to the lower category",
+      tieRule: options.tieRule ?? "ties at a cut go to the lower category",
       byYear,
       realisedShares: { below: 97 / 291, near: 97 / 291, above: 97 / 291 },
     },
@@ -227,11 +235,13 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
     season: 2027,
     region: regionName,
     baseRate,
-    current: [
-      { index: "ENSO", value: 1.2, label: "warm", nearBoundary: false, z: 1.4, source: "region.json" },
-      { index: "NAO", value: 0.46, label: "positive", nearBoundary: true, z: 0.5, source: "--values" },
-    ],
-    missing: [],
+    current: options.noCurrentValues
+      ? []
+      : [
+          { index: "ENSO", value: 1.2, label: options.ensoLabels?.[2] ?? "warm", nearBoundary: false, z: 1.4, source: "region.json" },
+          { index: "NAO", value: 0.46, label: "positive", nearBoundary: true, z: 0.5, source: "--values" },
+        ],
+    missing: options.noCurrentValues ? ["ENSO", "NAO"] : [],
     fireYear: { ...fireYearEstimate, basis: "the ENSO warm phase", basisIndices: ["ENSO"], years: 83, fireYears: 17, comparedWithBase: "higher" },
     perIndex: [
       { index: "ENSO", label: "warm", probability: estimate(17, 83, false), years: 83, fireYears: 17 },
@@ -251,8 +261,14 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
           values: { ENSO: 1.1 + i * 0.05, NAO: 0.4 - i * 0.03 },
         })),
     analogFireShare: degenerate ? { estimate: null, lower: null, upper: null, reason: "no analogs" } : estimate(3, 5, false),
-    hindcast: skill,
-    warnings: [],
+    hindcast: options.noCurrentValues
+      ? {
+          ...skill,
+          hasSkill: false,
+          verdict: "No current index values were given, so these are the long-term average odds; a skill score does not apply to them.",
+        }
+      : skill,
+    warnings: options.outlookWarnings ?? [],
   };
 
   const workspace: Workspace = {

@@ -45,12 +45,14 @@ export interface ActivityTimelineInput {
 const MARGINS = { top: 22, right: 64, bottom: 64, left: 64 };
 
 /**
- * Fire-record timeline: one bar per year of fire activity (fire years amber, other years grey),
- * the fire-year threshold as a dashed line, sample depth (sites recording) as a stepped blue line
+ * Fire-record timeline: one bar per year of fire activity (high-fire years amber, other
+ * calibration years grey, years outside the calibration period light grey — fire years are chosen
+ * only among calibration years, so a tall light bar is not a missed fire year), the fire-year
+ * threshold as a dashed line, sample depth (sites recording) as a stepped blue line
  * on a second, right-hand axis, and the calibration period shaded and labelled
  * "Calibration 1700–1990".
  *
- * Bars are drawn as two paths (one per colour) one year wide, so four centuries stay legible in a
+ * Bars are drawn as three paths (one per colour) one year wide, so four centuries stay legible in a
  * page column; x ticks come from scale.ticks() (every 50 or 100 years, integer format); the
  * threshold label uses two decimals when below 1 and an integer otherwise. Years with null
  * activity have no bar. With no drawable activity the plot shows "not enough data" over the axes.
@@ -68,11 +70,12 @@ const MARGINS = { top: 22, right: 64, bottom: 64, left: 64 };
  */
 export function activityTimeline(input: Readonly<ActivityTimelineInput>, options?: ChartOptions): string {
   const thresholdText = isDrawable(input.threshold)
-    ? `Fire-year threshold (${input.threshold < 1 ? formatSigned(input.threshold, 2) : String(Math.round(input.threshold))})`
-    : "Fire-year threshold: none";
+    ? `High-fire threshold (${input.threshold < 1 ? formatSigned(input.threshold, 2) : String(Math.round(input.threshold))})`
+    : "High-fire threshold: none";
   const entries: LegendEntry[] = [
-      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.fireYear })}/>`, label: "Fire years" },
-      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.otherYear })}/>`, label: "Other years" },
+      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.fireYear })}/>`, label: "High-fire years" },
+      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.otherYear })}/>`, label: "Other calibration years" },
+      { symbol: `<rect${attrs({ x: -4, y: -6, width: 8, height: 12, fill: palette.outsideYear })}/>`, label: "Outside calibration (not used)" },
       { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.ink, "stroke-width": 1.2, "stroke-dasharray": "6 3" })}/>`, label: thresholdText },
       { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.sampleDepth, "stroke-width": 1.6 })}/>`, label: "Sites recording (right axis)" },
     ];
@@ -126,11 +129,15 @@ export function activityTimeline(input: Readonly<ActivityTimelineInput>, options
   body += axisVertical(depth, frame, { title: "Sites recording", ticks: 5, format: "d", integer: true, colour: palette.sampleDepth }, "right");
   body += axisBottom(x, frame, { title: "Year", ticks: 8, format: "d", integer: true });
 
-  const barPath = (fire: boolean): string => {
+  const calibrationLow = isDrawable(calibration.first) && isDrawable(calibration.last) ? Math.min(calibration.first, calibration.last) : -Infinity;
+  const calibrationHigh = isDrawable(calibration.first) && isDrawable(calibration.last) ? Math.max(calibration.first, calibration.last) : Infinity;
+  const kindOf = (entry: ActivityTimelineYear): "fire" | "other" | "outside" =>
+    entry.year < calibrationLow || entry.year > calibrationHigh ? "outside" : entry.fireYear ? "fire" : "other";
+  const barPath = (kind: "fire" | "other" | "outside"): string => {
     let d = "";
     const y0 = y(0);
     for (const entry of withActivity) {
-      if (entry.fireYear !== fire || entry.activity <= 0) continue;
+      if (kindOf(entry) !== kind || entry.activity <= 0) continue;
       const x0 = x(entry.year - 0.5);
       const x1 = x(entry.year + 0.5);
       const top = y(Math.max(0, entry.activity));
@@ -138,8 +145,10 @@ export function activityTimeline(input: Readonly<ActivityTimelineInput>, options
     }
     return d;
   };
-  const otherBars = barPath(false);
-  const fireBars = barPath(true);
+  const outsideBars = barPath("outside");
+  const otherBars = barPath("other");
+  const fireBars = barPath("fire");
+  if (outsideBars !== "") body += `<path${attrs({ d: outsideBars, fill: palette.outsideYear })}/>`;
   if (otherBars !== "") body += `<path${attrs({ d: otherBars, fill: palette.otherYear })}/>`;
   if (fireBars !== "") body += `<path${attrs({ d: fireBars, fill: palette.fireYear, stroke: palette.fireYear, "stroke-width": 0.6 })}/>`;
   if (withActivity.length === 0) body += notEnoughData(frame);

@@ -1,4 +1,5 @@
 import { scaleBand, scaleLinear } from "d3-scale";
+import { symbol, symbolDiamond } from "d3-shape";
 import type { ChartInterval } from "./oddsByPhaseChart.js";
 import { palette } from "./palette.js";
 import {
@@ -6,15 +7,18 @@ import {
   axisBottomBand,
   axisVertical,
   type ChartOptions,
+  coord,
   formatPercent,
   isDrawable,
+  legend,
+  type LegendEntry,
   makeFrame,
   notEnoughData,
   svgOpen,
   svgText,
 } from "./svgParts.js";
 
-/** Input of {@link categoryOddsBar}: the chance of each activity category. */
+/** Input of {@link categoryOddsBar}: the chance of each activity category this season and in an average year. */
 export interface CategoryOddsBarInput {
   /** Chance of a below-normal fire year, with its interval. */
   readonly below: ChartInterval;
@@ -22,45 +26,62 @@ export interface CategoryOddsBarInput {
   readonly near: ChartInterval;
   /** Chance of an above-normal fire year, with its interval. */
   readonly above: ChartInterval;
+  /**
+   * The average-year share of each category (the realised shares of the calibration years, in
+   * [0, 1]; null where unknown), marked on its bar. Ties among quiet years can make these differ
+   * from one third.
+   */
+  readonly averageYear: { readonly below: number | null; readonly near: number | null; readonly above: number | null };
 }
 
-const MARGINS = { top: 16, right: 76, bottom: 58, left: 60 };
+/** Margins of the default chart, sized for half a page column (about 88 mm wide on A4). */
+const MARGINS = { top: 34, right: 8, bottom: 54, left: 46 };
+/** Size of the estimate under each bar and of the average-year labels, in user units. */
+const VALUE_SIZE = 14;
+const SMALL_SIZE = 12;
 const CATEGORIES = [
   { key: "below", label: "Below normal" },
   { key: "near", label: "Near normal" },
   { key: "above", label: "Above normal" },
 ] as const;
+const averageMarker = symbol(symbolDiamond, 70);
 
 /**
- * Category odds bars: the chance of a below-, near- and above-normal fire year as three bars
- * (blue, grey, amber) with interval whiskers, a dashed reference line at one third (labelled
- * "Equal odds (33%)") and, under each category name, the estimate in bold and its interval
- * below it, in whole percent ("53%", "(40–66%)").
+ * Category odds bars: the chance of a below-, near- and above-normal fire year this season as
+ * three bars (blue, grey, amber) with interval whiskers and, on each bar, a hollow diamond at the
+ * category's average-year share labelled with that share ("49%"); a legend over the plot names
+ * the two ("This season, 95% interval", "Average year"). Under each category name the estimate
+ * is printed in bold and its interval below it, in whole percent ("53%", "(40–66%)").
  *
- * The y axis runs 0–100% in 20% steps. A category with a null estimate shows "not enough data"
- * in its place; when all three are null the plot shows "not enough data" over the axes.
+ * The chart is drawn for half a page column: at its default 340 × 236 viewBox printed about
+ * 88 mm wide, its smallest text (11 units) prints at about 8 pt. The y axis runs 0–100% in 20%
+ * steps. A category with a null estimate shows "not enough data" in its place (its average-year
+ * marker is still drawn); when all three are null the plot shows "not enough data" over the axes.
  *
- * @param input - the three categories, each estimate and limits in [0, 1] or null.
- * @param options - viewBox width (default 680) and height (default 240).
+ * @param input - the three categories, each estimate and limits in [0, 1] or null, and the
+ *   average-year shares in [0, 1] or null.
+ * @param options - viewBox width (default 340) and height (default 236).
  * @returns a self-contained `<svg>` string.
  * @throws RangeError when a width or height option is out of range.
  * @example
  * categoryOddsBar({ below: { estimate: 0.2, lower: 0.1, upper: 0.35 },
- *   near: { estimate: 0.3, lower: 0.18, upper: 0.45 }, above: { estimate: 0.5, lower: 0.35, upper: 0.65 } });
+ *   near: { estimate: 0.3, lower: 0.18, upper: 0.45 }, above: { estimate: 0.5, lower: 0.35, upper: 0.65 },
+ *   averageYear: { below: 0.49, near: 0.19, above: 0.32 } });
  * // => '<svg xmlns="http://www.w3.org/2000/svg" …</svg>'
  * @see Epstein E.S. (1969) "A scoring system for probability forecasts of ranked categories",
- * Journal of Applied Meteorology 8:985–987 (three ordered categories with equal climatological
- * odds of one third).
+ * Journal of Applied Meteorology 8:985–987 (three ordered categories scored against their
+ * climatological odds).
  */
 export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?: ChartOptions): string {
-  const frame = makeFrame(options, { width: 680, height: 240 }, MARGINS);
+  const frame = makeFrame(options, { width: 340, height: 236 }, MARGINS);
   const x = scaleBand<string>()
     .domain(CATEGORIES.map((category) => category.key))
     .range([frame.left, frame.right])
-    .paddingInner(0.45)
-    .paddingOuter(0.3);
+    .paddingInner(0.42)
+    .paddingOuter(0.22);
   const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
   const labelOf = (key: string): string => CATEGORIES.find((category) => category.key === key)?.label ?? key;
+  const diamond = averageMarker() ?? "";
 
   let body = axisVertical(y, frame, { title: "Chance", ticks: 5, format: ".0%", grid: true });
   body += axisBottomBand(x, frame, "", labelOf);
@@ -71,35 +92,53 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
     if (start === undefined) continue;
     const middle = start + x.bandwidth() / 2;
     if (!isDrawable(value.estimate)) {
-      body += svgText(middle, frame.bottom - 10, "not enough data", { "text-anchor": "middle", fill: palette.inkMuted, "font-style": "italic" });
-      continue;
-    }
-    drawn += 1;
-    const top = y(value.estimate);
-    body += `<rect${attrs({ x: start, y: top, width: x.bandwidth(), height: Math.max(frame.bottom - top, 0.5), fill: palette[category.key], stroke: palette.inkMuted, "stroke-width": 0.6 })}/>`;
-    if (isDrawable(value.lower) && isDrawable(value.upper)) {
-      const yl = y(value.lower);
-      const yu = y(value.upper);
-      body += `<line${attrs({ x1: middle, x2: middle, y1: yl, y2: yu, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
-      for (const end of [yl, yu]) {
-        body += `<line${attrs({ x1: middle - 7, x2: middle + 7, y1: end, y2: end, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
+      body += svgText(middle, frame.bottom + 33, "not enough data", { "text-anchor": "middle", fill: palette.inkMuted, "font-style": "italic" });
+    } else {
+      drawn += 1;
+      const top = y(value.estimate);
+      body += `<rect${attrs({ x: start, y: top, width: x.bandwidth(), height: Math.max(frame.bottom - top, 0.5), fill: palette[category.key], stroke: palette.inkMuted, "stroke-width": 0.6 })}/>`;
+      if (isDrawable(value.lower) && isDrawable(value.upper)) {
+        const yl = y(value.lower);
+        const yu = y(value.upper);
+        body += `<line${attrs({ x1: middle, x2: middle, y1: yl, y2: yu, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
+        for (const end of [yl, yu]) {
+          body += `<line${attrs({ x1: middle - 6, x2: middle + 6, y1: end, y2: end, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
+        }
+      }
+      body += svgText(middle, frame.bottom + 33, formatPercent(value.estimate), {
+        "text-anchor": "middle",
+        "font-size": VALUE_SIZE,
+        "font-weight": 700,
+        fill: palette.ink,
+      });
+      if (isDrawable(value.lower) && isDrawable(value.upper)) {
+        const interval = `(${formatPercent(value.lower).replace("%", "")}\u2013${formatPercent(value.upper)})`;
+        body += svgText(middle, frame.bottom + 48, interval, { "text-anchor": "middle", "font-size": SMALL_SIZE, fill: palette.inkMuted });
       }
     }
-    body += svgText(middle, frame.bottom + 33, formatPercent(value.estimate), {
-      "text-anchor": "middle",
-      "font-size": 13,
-      "font-weight": 700,
-      fill: palette.ink,
-    });
-    if (isDrawable(value.lower) && isDrawable(value.upper)) {
-      const interval = `(${formatPercent(value.lower).replace("%", "")}\u2013${formatPercent(value.upper)})`;
-      body += svgText(middle, frame.bottom + 48, interval, { "text-anchor": "middle", fill: palette.inkMuted });
+    const average = input.averageYear[category.key];
+    if (isDrawable(average)) {
+      const ay = y(Math.min(1, Math.max(0, average)));
+      body += `<path${attrs({ class: "average-year", d: diamond, transform: `translate(${coord(middle)} ${coord(ay)})`, fill: "#ffffff", stroke: palette.ink, "stroke-width": 1.6 })}/>`;
+      body += svgText(start + x.bandwidth() + 4, ay + 4, formatPercent(average), {
+        "font-size": SMALL_SIZE,
+        fill: palette.ink,
+        stroke: "#ffffff",
+        "stroke-width": 3,
+        "paint-order": "stroke",
+      });
     }
   }
-  const third = y(1 / 3);
-  body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: third, y2: third, stroke: palette.ink, "stroke-width": 1.2, "stroke-dasharray": "6 4" })}/>`;
-  body += svgText(frame.right + 6, third - 3, "Equal odds", { fill: palette.ink });
-  body += svgText(frame.right + 6, third + 11, "(33%)", { fill: palette.ink });
   if (drawn === 0) body += notEnoughData(frame);
-  return `${svgOpen(frame, "Chance of a below-, near- or above-normal fire year")}${body}</svg>`;
+  const entries: LegendEntry[] = [
+    {
+      symbol:
+        `<rect${attrs({ x: -6, y: -5, width: 12, height: 10, fill: "#ffffff", stroke: palette.inkMuted, "stroke-width": 0.8 })}/>` +
+        `<line${attrs({ x1: 0, x2: 0, y1: -7, y2: 7, stroke: palette.ink, "stroke-width": 1.5 })}/>`,
+      label: "This season, 95% interval",
+    },
+    { symbol: `<path${attrs({ d: diamond, fill: "#ffffff", stroke: palette.ink, "stroke-width": 1.6 })}/>`, label: "Average year" },
+  ];
+  body += legend(entries, frame, 12);
+  return `${svgOpen(frame, "Chance of a below-, near- or above-normal fire year, this season and in an average year")}${body}</svg>`;
 }

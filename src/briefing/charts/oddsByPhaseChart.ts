@@ -53,7 +53,7 @@ const MARGINS = { top: 14, right: 150, bottom: 64, left: 112 };
  * a dot at the estimate and a line across its 95% interval, against the base rate (all years)
  * drawn as a vertical line inside its shaded interval.
  *
- * Layout: one row per phase; x axis "Chance of a fire year" from 0% to 100% (ticks every 10%);
+ * Layout: one row per phase; x axis "Chance of a high-fire year" from 0% to 100% (ticks every 10%);
  * the right column reads "42% (28–57%) · 23 yr" — whole percent, fixed format. A phase flagged
  * `smallSample` has a hollow dot and a legend note "Hollow: few years". A phase with a null
  * estimate shows "not enough data" in its row; when no phase has an estimate the whole plot shows
@@ -83,7 +83,7 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
     },
     {
       symbol: `<rect${attrs({ x: -7, y: -6, width: 14, height: 12, fill: palette.baseRate, "fill-opacity": 0.14 })}/><line${attrs({ x1: 0, x2: 0, y1: -6, y2: 6, stroke: palette.baseRate, "stroke-width": 2, "stroke-dasharray": "3 2" })}/>`,
-      label: isDrawable(base.estimate) ? `Base rate, all years (${formatPercent(base.estimate)})` : "Base rate: not enough data",
+      label: isDrawable(base.estimate) ? `Average year (${formatPercent(base.estimate)})` : "Average year: not enough data",
     },
   ];
   if (input.phases.some((row) => row.smallSample && isDrawable(row.estimate))) {
@@ -106,7 +106,7 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
     .paddingInner(0.25)
     .paddingOuter(0.2);
 
-  let body = axisBottom(x, frame, { title: "Chance of a fire year", ticks: 10, format: ".0%", grid: true });
+  let body = axisBottom(x, frame, { title: "Chance of a high-fire year", ticks: 10, format: ".0%", grid: true });
   body += svgText(LEGEND_INSET, frame.top + 8, `${input.indexName} phase`, {
     stroke: "#ffffff",
     "stroke-width": 4,
@@ -165,5 +165,5 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
   if (drawable.length === 0) body += notEnoughData(frame);
 
   body += legend(entries, frame, frame.bottom + 52);
-  return `${svgOpen(frame, `Chance of a fire year by ${input.indexName} phase`)}${body}</svg>`;
+  return `${svgOpen(frame, `Chance of a high-fire year by ${input.indexName} phase`)}${body}</svg>`;
 }

@@ -33,6 +33,8 @@ export interface ChartPalette {
   readonly fireYear: HexColour;
   /** Years that are not fire years: mid grey. */
   readonly otherYear: HexColour;
+  /** Years outside the calibration period (not used to choose fire years): light grey. */
+  readonly outsideYear: HexColour;
   /** The current season's marker: purple. */
   readonly current: HexColour;
   /** The base rate (climatology) line and band: teal. */
@@ -71,6 +73,7 @@ export const palette: ChartPalette = Object.freeze({
   limit99: "#a772cf",
   fireYear: "#d9822b",
   otherYear: "#9e9e9e",
+  outsideYear: "#d6d6d6",
   current: "#8e44ad",
   baseRate: "#168a7a",
   sampleDepth: "#1d4e89",
@@ -98,7 +101,7 @@ export const coloursUsedTogether: Readonly<Record<string, readonly PaletteRole[]
   oddsByPhaseChart: ["estimate", "interval", "baseRate", "ink"],
   seaChart: ["estimate", "interval", "limit95", "limit99", "ink"],
   phaseSpaceScatter: ["otherYear", "fireYear", "current", "ink"],
-  activityTimeline: ["otherYear", "fireYear", "sampleDepth", "ink"],
+  activityTimeline: ["otherYear", "outsideYear", "fireYear", "sampleDepth", "ink"],
   reliabilityDiagram: ["estimate", "baseRate", "ink"],
   rocCurveChart: ["estimate", "ink"],
   stabilityChart: ["series0", "series1", "series2", "series3", "inkMuted"],

@@ -81,7 +81,7 @@ export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, opt
   const maxCount = Math.max(1, ...bins.map((bin) => bin.count));
   const radius = scaleSqrt().domain([0, maxCount]).range([0, 11]);
 
-  let body = axisBottom(x, frame, { title: "Forecast chance of a fire year", ticks: 5, format: ".0%", grid: true });
+  let body = axisBottom(x, frame, { title: "Forecast chance of a high-fire year", ticks: 5, format: ".0%", grid: true });
   body += axisVertical(y, frame, { title: "Observed frequency", ticks: 5, format: ".0%", grid: true });
   body += `<line${attrs({ x1: x(0), y1: y(0), x2: x(1), y2: y(1), stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`;
   if (isDrawable(input.climatology)) {

@@ -93,7 +93,7 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
     body += `<rect${attrs({ x: fireBand - (step - x.bandwidth()) / 2, y: frame.top, width: step, height: frame.bottom - frame.top, fill: palette.shade })}/>`;
   }
   body += axisVertical(y, frame, { title: "Index departure", ticks: 6, grid: true });
-  body += axisBottomBand(x, frame, "Years from fire year", (key) => formatSigned(Number(key), 0, true));
+  body += axisBottomBand(x, frame, "Years from high-fire year", (key) => formatSigned(Number(key), 0, true));
 
   let drawn = 0;
   input.lags.forEach((lag, index) => {
@@ -148,5 +148,5 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
   if (drawn === 0) body += notEnoughData(frame);
 
   body += legend(entries, frame, frame.bottom + 52);
-  return `${svgOpen(frame, `Superposed epoch analysis of ${input.indexName} around fire years`)}${body}</svg>`;
+  return `${svgOpen(frame, `Superposed epoch analysis of ${input.indexName} around high-fire years`)}${body}</svg>`;
 }

@@ -76,7 +76,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
   }));
   entries.push({
     symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`,
-    label: isDrawable(input.baseRate) ? `Base rate (${formatPercent(input.baseRate)})` : "Base rate: not enough data",
+    label: isDrawable(input.baseRate) ? `Average year (${formatPercent(input.baseRate)})` : "Average year: not enough data",
   });
   entries.push({
     symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.series[0], "fill-opacity": 0.12 })}/>`,
@@ -99,7 +99,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
   const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
 
   let body = axisBottom(x, frame, { title: "Middle year of window", ticks: windows.length > 0 ? 8 : 0, format: "d", integer: true });
-  body += axisVertical(y, frame, { title: "Chance of a fire year", ticks: 5, format: ".0%", grid: true });
+  body += axisVertical(y, frame, { title: "Chance of a high-fire year", ticks: 5, format: ".0%", grid: true });
   if (isDrawable(input.baseRate)) {
     body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(input.baseRate), y2: y(input.baseRate), stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`;
   }
@@ -140,5 +140,5 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
   }
   if (drawn === 0) body += notEnoughData(frame);
   body += legend(entries, frame, frame.bottom + 52);
-  return `${svgOpen(frame, "Chance of a fire year by phase in moving windows")}${body}</svg>`;
+  return `${svgOpen(frame, "Chance of a high-fire year by phase in moving windows")}${body}</svg>`;
 }

@@ -18,20 +18,30 @@ const input: ActivityTimelineInput = Object.freeze({
 describe("activityTimeline", () => {
   it("activityTimeline(input) labels both axes, the calibration period and the threshold", () => {
     const text = chartText(checkChartSvg(activityTimeline(input)));
-    for (const label of ["Share of sites burned", "Sites recording", "Year", "Calibration 1700–1990", "Fire-year threshold (0.80)", "Fire years", "Other years", "1600", "1950"]) {
+    for (const label of ["Share of sites burned", "Sites recording", "Year", "Calibration 1700–1990", "High-fire threshold (0.80)", "High-fire years", "Other calibration years", "Outside calibration (not used)", "1600", "1950"]) {
       expect(text).toContain(label);
     }
   });
 
-  it("activityTimeline(input) draws one bar per fire year with activity > 0 in the fire-year path", () => {
+  it("activityTimeline(input) draws one bar per calibration fire year with activity > 0 in the fire-year path", () => {
     const document = checkChartSvg(activityTimeline(input));
     const fire = elementsWith(document, "path", "fill", palette.fireYear).find((element) => element.ancestors.length === 1);
     const other = elementsWith(document, "path", "fill", palette.otherYear).find((element) => element.ancestors.length === 1);
-    const fireCount = years.filter((entry) => entry.fireYear && (entry.activity ?? 0) > 0).length;
-    const otherCount = years.filter((entry) => !entry.fireYear && (entry.activity ?? 0) > 0).length;
+    const inside = (entry: (typeof years)[number]) => entry.year >= 1700 && entry.year <= 1990 && (entry.activity ?? 0) > 0;
+    const fireCount = years.filter((entry) => inside(entry) && entry.fireYear).length;
+    const otherCount = years.filter((entry) => inside(entry) && !entry.fireYear).length;
     expect(fireCount).toBeGreaterThan(20);
     expect(fire?.attributes.d?.match(/Z/g)).toHaveLength(fireCount);
     expect(other?.attributes.d?.match(/Z/g)).toHaveLength(otherCount);
+  });
+
+  it("years outside the calibration period (1580–1699, 1991–2000) are drawn light grey, even when flagged or tall", () => {
+    const document = checkChartSvg(activityTimeline(input));
+    const outside = elementsWith(document, "path", "fill", palette.outsideYear).find((element) => element.ancestors.length === 1);
+    const outsideCount = years.filter((entry) => (entry.year < 1700 || entry.year > 1990) && (entry.activity ?? 0) > 0).length;
+    expect(outsideCount).toBeGreaterThan(50);
+    expect(outside?.attributes.d?.match(/Z/g)).toHaveLength(outsideCount);
+    expect(palette.outsideYear).not.toBe(palette.otherYear);
   });
 
   it("each bar is one year wide: 421 years over the 552-unit plot", () => {
@@ -56,7 +66,7 @@ describe("activityTimeline", () => {
       const document = checkChartSvg(activityTimeline(empty));
       expect(elementsWith(document, "text", "class", "not-enough-data")).toHaveLength(1);
     }
-    expect(chartText(checkChartSvg(activityTimeline({ ...input, years: [], threshold: null })))).toContain("Fire-year threshold: none");
+    expect(chartText(checkChartSvg(activityTimeline({ ...input, years: [], threshold: null })))).toContain("High-fire threshold: none");
   });
 
   it("the sites-recording axis shows distinct integer ticks only, even for a record of one site", () => {

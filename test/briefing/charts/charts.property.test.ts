@@ -104,7 +104,7 @@ describe("every chart, for arbitrary inputs with nulls, NaN, infinities and host
         interval,
         (labels, windows, baseRate, below, near, above) => {
           checkChartSvg(stabilityChart({ labels: [...labels, "a", "b"], windows, baseRate }));
-          checkChartSvg(categoryOddsBar({ below, near, above }));
+          checkChartSvg(categoryOddsBar({ below, near, above, averageYear: { below: baseRate, near: below.estimate, above: null } }));
         },
       ),
       runs,

@@ -16,7 +16,7 @@ const input: OddsByPhaseChartInput = Object.freeze({
 describe("oddsByPhaseChart", () => {
   it("oddsByPhaseChart(input) labels the axis, the phases and each value as 'p% (lo–hi%) · n yr'", () => {
     const text = chartText(checkChartSvg(oddsByPhaseChart(input)));
-    for (const label of ["Chance of a fire year", "ENSO phase", "cold", "neutral", "warm", "25% (16–35%) · 70 yr", "Base rate, all years (11%)", "0%", "100%"]) {
+    for (const label of ["Chance of a high-fire year", "ENSO phase", "cold", "neutral", "warm", "25% (16–35%) · 70 yr", "Average year (11%)", "0%", "100%"]) {
       expect(text).toContain(label);
     }
     expect(text).not.toContain("Hollow");
@@ -49,8 +49,8 @@ describe("oddsByPhaseChart", () => {
       oddsByPhaseChart({ indexName: "ENSO", phases: [], baseRate: { estimate: null, lower: null, upper: null } }),
     );
     expect(elementsWith(allNull, "text", "class", "not-enough-data")).toHaveLength(1);
-    expect(chartText(allNull)).toContain("Chance of a fire year");
-    expect(chartText(allNull)).toContain("Base rate: not enough data");
+    expect(chartText(allNull)).toContain("Chance of a high-fire year");
+    expect(chartText(allNull)).toContain("Average year: not enough data");
   });
 
   it("NaN and infinite numbers are treated as missing, never printed", () => {

@@ -31,7 +31,7 @@ describe("phaseSpaceScatter", () => {
   it("phaseSpaceScatter(input) labels the axes, the legend and the current season 'This season'", () => {
     const document = checkChartSvg(phaseSpaceScatter(input));
     const text = chartText(document);
-    for (const label of ["ENSO", "PDO", "Other years", "Fire years", "Phase cuts", "This season"]) expect(text).toContain(label);
+    for (const label of ["ENSO", "PDO", "Other years", "High-fire years", "Phase cuts", "This season"]) expect(text).toContain(label);
     expect(elementsWith(document, "path", "fill", palette.current).filter((element) => element.ancestors.length === 1)).toHaveLength(1);
   });
 

@@ -18,7 +18,7 @@ const bars = (svg: string) =>
 describe("seaChart", () => {
   it("seaChart(input) labels both axes and every lag with a signed integer (lag 0 = fire year)", () => {
     const text = chartText(checkChartSvg(seaChart(input)));
-    for (const label of ["Years from fire year", "Index departure", "\u22126", "\u22121", "0", "+1", "+4", "95% limits", "99% limits"]) {
+    for (const label of ["Years from high-fire year", "Index departure", "\u22126", "\u22121", "0", "+1", "+4", "95% limits", "99% limits"]) {
       expect(text).toContain(label);
     }
   });

@@ -19,7 +19,7 @@ const plotted = (svg: string, colour: string) =>
 describe("stabilityChart", () => {
   it("stabilityChart(input) labels the axes, the phases and the base rate", () => {
     const text = chartText(checkChartSvg(stabilityChart(input)));
-    for (const label of ["Middle year of window", "Chance of a fire year", "cold", "warm", "Base rate (11%)", "95% interval"]) {
+    for (const label of ["Middle year of window", "Chance of a high-fire year", "cold", "warm", "Average year (11%)", "95% interval"]) {
       expect(text).toContain(label);
     }
   });
