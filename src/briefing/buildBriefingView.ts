@@ -67,6 +67,8 @@ export interface LabelValue {
 /** The view model of the whole briefing (see templates/briefing.hbs). */
 export interface BriefingView {
   readonly documentTitle: string;
+  /** Paper size, for paper-specific spacing in the style sheet (body class paper-a4 / paper-letter). */
+  readonly paper: "a4" | "letter";
   readonly header: {
     readonly region: string;
     readonly description: string | null;
@@ -578,6 +580,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
 
   return {
     documentTitle: `Fire-season outlook ${outlook.season}: ${outlook.region}`,
+    paper: inputs.paper,
     header: {
       region: outlook.region,
       description: settings.description,
@@ -629,7 +632,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         nearBoundary: phase.nearBoundary,
         source: phase.source,
         note: phase.nearBoundary
-          ? `near a phase boundary (within ${formatDecimal(methods.nearBoundaryMargin, 2)}): a small change would change the phase`
+          ? `within ${formatDecimal(methods.nearBoundaryMargin, 2)} of a cut: a small change would change the phase`
           : "",
       })),
       missingText: outlook.missing.length === 0 ? null : `No value for this season, left out: ${outlook.missing.join(", ")}.`,

@@ -120,6 +120,16 @@ describe("PdfPrinter.print(briefing html)", () => {
     expect(header).toMatch(/\/MediaBox \[0 0 612 792\]/); // US Letter, 8.5 × 11 in at 72 pt/in
   });
 
+  it("keeps the cautions on page 1 and leaves no near-empty page on Letter paper", async () => {
+    const { pages } = await printSample({ outlookWarnings: [{ code: "small-basis", message: "the odds rest on only 12 past years: treat them as rough" }] }, "letter");
+    const first = (pages[0] ?? "").replace(/\s+/g, " ");
+    expect(first).toContain("Read with care");
+    expect(first).toContain("The odds rest on only 12 past years: treat them as rough.");
+    expect(first).toContain("Official agency seasonal outlooks and daily fire-danger forecasts come first");
+    // Each page carries more than its footer (about 90 characters) and a stray bullet.
+    for (const page of pages) expect(page.replace(/\s+/g, " ").length).toBeGreaterThan(400);
+  });
+
   it("shows a hostile region name as text and runs nothing", async () => {
     const hostile = `<script>document.title='owned'</script><img src=file:///etc/passwd onerror=alert(1)> & "Ridge"`;
     const { pages, html, printed } = await printSample({ regionName: hostile, description: "<iframe src=http://127.0.0.1:9/>" });

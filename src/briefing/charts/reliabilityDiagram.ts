@@ -66,7 +66,7 @@ export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, opt
   const entries: LegendEntry[] = [
       { symbol: `<circle${attrs({ r: 5, fill: palette.estimate })}/>`, label: "Hindcast bins (larger dot: more years)" },
       { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 5, y2: -5, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "Perfect reliability" },
-      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.baseRate, "stroke-width": 1.5, "stroke-dasharray": "2 3" })}/>`, label: "Climatology" },
+      { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.baseRate, "stroke-width": 1.5, "stroke-dasharray": "2 3" })}/>`, label: "Average year (climatology)" },
     ];
   const frame = makeFrame(options, { width: 340, height: 330 }, (width) => ({
     ...MARGINS,

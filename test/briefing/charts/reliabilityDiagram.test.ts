@@ -18,7 +18,7 @@ const dots = (svg: string) => checkChartSvg(svg).elements.filter((element) => el
 describe("reliabilityDiagram", () => {
   it("reliabilityDiagram(input) labels the axes, the legend and the bin counts", () => {
     const text = chartText(checkChartSvg(reliabilityDiagram(input)));
-    for (const label of ["Forecast chance of a high-fire year", "Observed frequency", "Perfect reliability", "Climatology", "n", "120", "80", "30", "0%", "100%"]) {
+    for (const label of ["Forecast chance of a high-fire year", "Observed frequency", "Perfect reliability", "Average year (climatology)", "n", "120", "80", "30", "0%", "100%"]) {
       expect(text).toContain(label);
     }
   });
