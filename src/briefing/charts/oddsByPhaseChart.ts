@@ -50,7 +50,7 @@ const MARGINS = { top: 14, right: 150, bottom: 64, left: 112 };
 
 /**
  * Conditional odds by phase chart: the chance of a fire year in each phase of one climate index,
- * a dot at the estimate and a line across its 95% interval, against the base rate (all years)
+ * a dot at the estimate and a line across its 95% interval, against the base rate (all years; legend "Average year (10%)")
  * drawn as a vertical line inside its shaded interval.
  *
  * Layout: one row per phase; x axis "Chance of a high-fire year" from 0% to 100% (ticks every 10%);

@@ -45,7 +45,8 @@ const DASHES: readonly (string | undefined)[] = [undefined, "7 3", "2 2", "9 3 2
 /**
  * Stability of the phase odds through time: for each phase, the chance of a fire year in moving
  * windows plotted at each window's middle year ((first + last) / 2), as a line with a marker
- * shape of its own and a light band across its interval, beside the dashed base-rate line.
+ * shape of its own and a light band across its interval, beside the dashed base-rate line
+ * (legend "Average year (11%)").
  *
  * The y axis runs 0–100% (whole-percent ticks); x ticks are integer years. A window where a phase
  * has a null estimate breaks that phase's line; null limits break its band. With no drawable
