@@ -61,7 +61,7 @@ export function formatOutlook(outlook: Outlook): string {
   out.push("This season's index phases:");
   out.push(
     textTable(
-      ["index", "value", "from", "phase", "P(fire year) in this phase", "95% interval", "years"],
+      ["index", "value", "from", "phase", "P(high-fire year) in this phase", "95% interval", "years"],
       outlook.current.map((phase) => {
         const odds = outlook.perIndex.find((entry) => entry.index === phase.index);
         return [
@@ -79,12 +79,12 @@ export function formatOutlook(outlook: Outlook): string {
   if (outlook.missing.length > 0) out.push(`  no current value (left out): ${outlook.missing.join(", ")}`);
   out.push("");
   out.push(
-    `Analog years (nearest in standardized index space): ${outlook.analogs.filter((a) => a.fireYear).length} of ${outlook.analogs.length} were fire years` +
+    `Analog years (nearest in standardized index space): ${outlook.analogs.filter((a) => a.fireYear).length} of ${outlook.analogs.length} were high-fire years` +
       ` (${formatPercent(outlook.analogFireShare.estimate)}, 95% interval ${formatPercentRange(outlook.analogFireShare.lower, outlook.analogFireShare.upper)})`,
   );
   out.push(
     textTable(
-      ["year", "distance", "fire year", "activity", "category"],
+      ["year", "distance", "high-fire year", "activity", "category"],
       outlook.analogs.map((analog) => [
         String(analog.year),
         fixed(analog.distance, 2),

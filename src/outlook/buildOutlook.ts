@@ -90,11 +90,11 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const strongest = ranking.find((rank) => currentPhase.has(rank.index))?.index;
   const basis =
     cell.basis === "joint"
-      ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices with the strongest measured link to fire years in the calibration, by chi-square p)`
+      ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices with the strongest measured link to high-fire years in the calibration, by chi-square p)`
       : cell.basis === "single"
         ? `the ${cell.years.length} calibration years when ${cellWords} (` +
           (cell.indices[0] === strongest
-            ? "the index with the strongest measured link to fire years in the calibration, by chi-square p"
+            ? "the index with the strongest measured link to high-fire years in the calibration, by chi-square p"
             : "the most strongly linked index with past years in its current phase") +
           (currentPhase.size > 1 ? `; the joint phase with the next index had fewer than ${settings.methods.jointMinYears} years)` : ")")
         : currentPhase.size === 0
@@ -115,7 +115,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
       const alone = forecastCell(training, new Map([[other, currentPhase.get(other) as number]]), [{ index: other, chiSquare: 0, pValue: 0 }], 0);
       warnings.push({
         code: "weak-basis-index",
-        message: `${name}'s link to fire years is not clear in the record (chi-square q = ${q === null ? "not computable" : q.toPrecision(2)}); from ${other} ${labelOf(other, currentPhase.get(other) as number)} alone the chance is ${probabilityWords(alone.fireYears, alone.years.length)}`,
+        message: `${name}'s link to high-fire years is not clear in the record (chi-square q = ${q === null ? "not computable" : q.toPrecision(2)}); from ${other} ${labelOf(other, currentPhase.get(other) as number)} alone the chance is ${probabilityWords(alone.fireYears, alone.years.length)}`,
       });
     }
     const value = currentValue.get(name) as number;

@@ -223,8 +223,8 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
         ],
         hasSkill: !options.noSkill,
         verdict: options.noSkill
-          ? "No skill: in the hindcast this method did not forecast fire years better than the long-term average. Treat these odds as no better than climatology."
-          : "Some skill: in the hindcast this method forecast fire years better than the long-term average, but a good hindcast is no guarantee for any single season.",
+          ? "No skill: in the hindcast this method did not forecast high-fire years better than the long-term average. Treat these odds as no better than the average year."
+          : "Some skill: in the hindcast this method forecast high-fire years better than the long-term average, but a good hindcast is no guarantee for any single season.",
         rule: "BSS > 0 and ROC area − 1.96 SE > 0.5",
         forecasts: [],
       };
