@@ -107,7 +107,7 @@ describe("PdfPrinter.print(briefing html)", () => {
     const { pages } = await printSample({ noSkill: true });
     const first = (pages[0] ?? "").replace(/\s+/g, " ");
     expect(first).toContain("Hindcast: the method showed no skill");
-    expect(first).toContain("Treat these odds as no better than climatology.");
+    expect(first).toContain("Treat these odds as no better than the average year.");
   });
 
   it("prints 'not enough data' with the reason for null statistics, on Letter paper", async () => {
