@@ -14,7 +14,7 @@ import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { progressReporter } from "./calibrate.js";
 import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
-import { collectOption, resolveOutlookRequest } from "./outlookRequest.js";
+import { addOutlookOptions, resolveOutlookRequest } from "./outlookRequest.js";
 import { firephaseVersion } from "./version.js";
 import { checkOutputTargets, OutputPathError, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
 
@@ -178,12 +178,11 @@ export async function runBrief(region: string, options: BriefOptions, context: B
  * program.addCommand(briefCommand());
  */
 export function briefCommand(): Command {
-  return new Command("brief")
-    .description("write the dated PDF briefing: odds, phases, skill, charts, methods and cautions")
-    .argument("<region>", "region folder (holds region.json)")
-    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json; may be repeated)", collectOption)
-    .option("--issued <date>", "issue date YYYY-MM-DD (default: region.json, then today)")
-    .option("--season <year>", "fire season year (default: region.json, then the issue year)")
+  return addOutlookOptions(
+    new Command("brief")
+      .description("write the dated PDF briefing: odds, phases, skill, charts, methods and cautions")
+      .argument("<region>", "region folder (holds region.json)"),
+  )
     .option("--out <file>", "PDF to write (default: briefing-<region>-<issue date>.pdf here)")
     .option("--html <file>", "also write the briefing as one self-contained HTML file")
     .option("--paper <size>", "a4 or letter", "a4")

@@ -7,18 +7,17 @@ import type { Outlook } from "../outlook/types.js";
 import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { progressReporter } from "./calibrate.js";
 import { handleError } from "./handleError.js";
-import { collectOption, resolveOutlookRequest } from "./outlookRequest.js";
+import { addOutlookOptions, resolveOutlookRequest } from "./outlookRequest.js";
 import { printJson } from "./printJson.js";
 import { fixed, textTable } from "./textTable.js";
 
 /** `firephase outlook <region> [--values NAME=V,…] [--issued DATE] [--season YEAR] [--json]`. */
 export function outlookCommand(): Command {
-  return new Command("outlook")
-    .description("odds of a high-fire year for this season's index values, analog years and hindcast skill")
-    .argument("<region>", "region folder (holds region.json)")
-    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json; may be repeated)", collectOption)
-    .option("--issued <date>", "issue date YYYY-MM-DD (default: region.json, then today)")
-    .option("--season <year>", "fire season year (default: region.json, then the issue year)")
+  return addOutlookOptions(
+    new Command("outlook")
+      .description("odds of a high-fire year for this season's index values, analog years and hindcast skill")
+      .argument("<region>", "region folder (holds region.json)"),
+  )
     .option("--json", "print the outlook as JSON (schema firephase.outlook/1)")
     .action(async (region: string, options: { values?: string | readonly string[]; issued?: string; season?: string; json?: boolean }) => {
       try {

@@ -1,6 +1,7 @@
 import { format, getMonth, isValid, parseISO } from "date-fns";
 import type { OutlookRequest } from "../outlook/buildOutlook.js";
 import type { Workspace } from "../workspace/types.js";
+import type { Command } from "commander";
 import { UsageError } from "./errors.js";
 
 export interface OutlookOptions {
@@ -13,6 +14,17 @@ export interface OutlookOptions {
 /** Collects a repeatable commander option into a list. */
 export function collectOption(value: string, previous: readonly string[] | undefined): string[] {
   return [...(previous ?? []), value];
+}
+
+/**
+ * Adds the options that choose the season and its index values (`--values`, `--issued`,
+ * `--season`), shared by `outlook` and `brief` so both read them the same way.
+ */
+export function addOutlookOptions(command: Command): Command {
+  return command
+    .option("--values <list>", "current seasonal index values, e.g. ENSO=1.2,NAO=0.4 (override region.json; may be repeated)", collectOption)
+    .option("--issued <date>", "issue date YYYY-MM-DD (default: region.json, then today)")
+    .option("--season <year>", "fire season year (default: region.json, then the issue year; the next year for an issue date in Oct–Dec)");
 }
 
 const DECIMAL = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
