@@ -129,6 +129,7 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
       lastLag: settings.methods.seaLastLag,
       draws: settings.methods.seaDraws,
       seed: settings.seed,
+      poolYears: period.years,
     });
     const aggregated = aggregatedLagCorrelation({
       first: period.first,

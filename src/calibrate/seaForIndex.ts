@@ -24,6 +24,8 @@ export function seaForIndex(input: {
   readonly lastLag: number;
   readonly draws: number;
   readonly seed: number;
+  /** The calibration years: the random draws take their key years from these only. */
+  readonly poolYears: readonly number[];
 }): SeaResult {
   const years: number[] = [];
   const values: (number | null)[] = [];
@@ -42,6 +44,7 @@ export function seaForIndex(input: {
     lastLag: input.lastLag,
     draws: input.draws,
     random: createRandom(streamSeed),
+    poolYears: input.poolYears,
   });
   const finite = (value: number): number | null => (Number.isFinite(value) ? value : null);
   const pair = (value: readonly [number, number]): [number, number] | null =>
@@ -60,7 +63,7 @@ export function seaForIndex(input: {
     draws: input.draws,
     seed: streamSeed,
     baseline: `mean of the index over ${input.first + input.firstLag}–${input.last + input.lastLag} (the calibration period widened by the lag window)`,
-    sampling: "the same number of years as fire years used, drawn at random without replacement from the years whose whole lag window has index values",
+    sampling: "the same number of years as fire years used, drawn at random without replacement from the calibration years whose whole lag window has index values",
     percentileRule: "2.5/97.5 and 0.5/99.5 percentiles of the random composites (Hyndman & Fan type 7); two-sided p = (b + 1)/(draws + 1)",
   };
   return out.reason === null ? result : { ...result, reason: out.reason };

@@ -62,7 +62,10 @@ const MINIMUM_DRAWS = 1000;
  *   `eventYears`: distinct integer event (key) years, which need not lie in the series;
  *   `firstLag` ≤ `lastLag`: integer lags in years (for example −6 and +4);
  *   `draws`: number of random draws, an integer ≥ 1000 (10,000 recommended);
- *   `random`: the random source (see {@link createRandom}); same seed ⇒ identical output.
+ *   `random`: the random source (see {@link createRandom}); same seed ⇒ identical output;
+ *   `poolYears` (optional): the candidate key years of the random draws (for example the years that
+ *   could have been events); only those whose whole window is covered are drawn. Default: every year
+ *   of the series.
  * @returns the composite, limits and p-values per lag. When no event year is given or none is usable,
  *   `composite`, `ci95`, `ci99` and `pValue` are NaN at every lag and `reason` says why (no random numbers are
  *   drawn then). The pool always contains the used events, so it is never smaller than their number; when it
@@ -99,6 +102,7 @@ export function superposedEpochAnalysis(input: {
   lastLag: number;
   draws: number;
   random: RandomSource;
+  poolYears?: readonly number[];
 }): SeaOutput {
   const { years, values, eventYears, firstLag, lastLag, draws, random } = input;
   validate(input);
@@ -155,9 +159,17 @@ export function superposedEpochAnalysis(input: {
   }
 
   const poolStarts: number[] = [];
-  for (let windowStart = 0; windowStart + lagCount <= span; windowStart += 1) {
-    if (isCoveredStart(windowStart)) {
-      poolStarts.push(windowStart);
+  if (input.poolYears === undefined) {
+    for (let windowStart = 0; windowStart + lagCount <= span; windowStart += 1) {
+      if (isCoveredStart(windowStart)) {
+        poolStarts.push(windowStart);
+      }
+    }
+  } else {
+    for (const year of [...new Set(input.poolYears)].sort((a, b) => a - b)) {
+      if (Number.isInteger(year) && isCoveredStart(windowStartOf(year))) {
+        poolStarts.push(windowStartOf(year));
+      }
     }
   }
   const poolSize = poolStarts.length;
@@ -181,6 +193,9 @@ export function superposedEpochAnalysis(input: {
   }
   if (eventCount === 0) {
     return notComputable(`no event year has a value at every lag of its window (${windowText})`);
+  }
+  if (poolSize < eventCount) {
+    return notComputable(`only ${poolSize} candidate years have a full window, fewer than the ${eventCount} events`);
   }
 
   const composite = new Array<number>(lagCount).fill(0);

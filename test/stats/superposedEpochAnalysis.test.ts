@@ -300,4 +300,26 @@ describe("superposedEpochAnalysis({ years, values, eventYears, firstLag, lastLag
       expect(() => superposedEpochAnalysis({ ...base, ...change })).toThrow(StatsInputError);
     });
   });
+
+  it("superposedEpochAnalysis({ …, poolYears }) draws key years only from the given candidates", () => {
+    const { years, values } = wavySeries(1690, 300);
+    const eventYears = [1710, 1750, 1790, 1830];
+    // Candidates = the events themselves: every random draw is the observed set, so p = 1 at every lag.
+    const onlyEvents = superposedEpochAnalysis({
+      years, values, eventYears, firstLag: -2, lastLag: 2, draws: 1000, random: createRandom(3), poolYears: eventYears,
+    });
+    expect(onlyEvents.poolSize).toBe(4);
+    expect(onlyEvents.pValue.every((p) => p === 1)).toBe(true);
+    // A pool restricted to 1700–1850 has exactly the 151 years of that span (all windows covered).
+    const restricted = superposedEpochAnalysis({
+      years, values, eventYears, firstLag: -2, lastLag: 2, draws: 1000, random: createRandom(3),
+      poolYears: Array.from({ length: 151 }, (_, i) => 1700 + i),
+    });
+    expect(restricted.poolSize).toBe(151);
+    // Fewer candidates than events: not computable, with a reason.
+    const tooFew = superposedEpochAnalysis({
+      years, values, eventYears, firstLag: -2, lastLag: 2, draws: 1000, random: createRandom(3), poolYears: [1710, 1750],
+    });
+    expect(tooFew.reason).toMatch(/fewer than the 4 events/);
+  });
 });
