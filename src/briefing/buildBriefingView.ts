@@ -121,6 +121,8 @@ export interface BriefingView {
   readonly analogs: {
     readonly available: boolean;
     readonly missingText: string | null;
+    /** A caution shown above the analog table when a current value is far outside every past year. */
+    readonly caution: string | null;
     readonly indexNames: readonly string[];
     readonly rows: readonly {
       readonly year: string;
@@ -250,7 +252,12 @@ export function describePhaseRule(index: IndexCalibration, period: { first: numb
 
 function chanceComparison(chance: number | null, base: number | null): string {
   if (chance === null || base === null || base <= 0) return "";
-  const ratio = chance / base;
+  // The ratio of the whole percentages printed beside it (35% and 10% → 3.5), so a reader can check it.
+  const shownChance = Math.round(chance * 100);
+  const shownBase = Math.round(base * 100);
+  if (shownBase === 0) return "";
+  const ratio = shownChance / shownBase;
+  if (shownChance === 0) return "";
   if (ratio >= 1.25) return `That is about ${formatDecimal(ratio, 1)} times the chance in an average year.`;
   if (ratio <= 0.8) return `That is lower than in an average year (about ${formatDecimal(ratio, 1)} times the average chance).`;
   return "That is close to the chance in an average year.";
@@ -506,7 +513,11 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       caption:
         `Each point is a calibration year (${period.first}–${period.last}) placed by its ${xIndex.name} and ${yIndex.name} values; ` +
         `high-fire years are marked, dashed lines are the phase boundaries` +
-        (currentX !== undefined && currentY !== undefined ? ", and the large marker is this season." : "; this season lacks one of the two values."),
+        (currentX !== undefined && currentY !== undefined
+          ? ", and the large marker is this season."
+          : outlook.current.length === 0
+            ? "; no current index values were given."
+            : "; this season lacks one of the two values."),
       chart: trustSvg(
         phaseSpaceScatter({
           xName: xIndex.name,
@@ -569,7 +580,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       : [{ label: "SEA draws and limits", value: `${firstSea.sampling}; baseline: ${firstSea.baseline}; ${firstSea.percentileRule}` }]),
     { label: "Aggregated lag correlation", value: `blocks of ${methods.blockYears} years, block lags −${methods.blockMaxLag} to +${methods.blockMaxLag}` },
     { label: "Stability windows", value: `${methods.stabilityWindow} years, step ${methods.stabilityStep} years` },
-    { label: "Joint phases", value: `used when the joint cell has at least ${methods.jointMinYears} calibration years` },
+    { label: "Joint phases", value: `used when the joint cell has at least ${methods.jointMinYears} calibration years and both indices have a clear link (chi-square q at most ${methods.jointMaxQ})` },
     { label: "Analog years", value: `${methods.analogs} nearest calibration years in standardized index space` },
     { label: "Hindcast", value: `each year forecast without itself and ${methods.hindcastExclusion} years either side` },
     { label: "Site independence distance", value: `${formatCount(methods.independenceKm)} km` },
@@ -601,7 +612,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
           : `${comparisonSentence(outlook.fireYear, outlook.baseRate)} ${chanceComparison(outlook.fireYear.estimate, outlook.baseRate.estimate)}`.trim(),
       basis:
         `Based on ${outlook.fireYear.basis}: ${plural(outlook.fireYear.fireYears, "high-fire year", "high-fire years")} ` +
-        `in ${plural(outlook.fireYear.years, "past year", "past years")} with the same phase${outlook.fireYear.basisIndices.length > 1 ? "s" : ""}.`,
+        `in ${plural(outlook.fireYear.years, "past year", "past years")}` +
+        (outlook.fireYear.basisIndices.length === 0 ? "." : ` with the same phase${outlook.fireYear.basisIndices.length > 1 ? "s" : ""}.`),
       definition:
         `A high-fire year is one of the top ${topPercent}% of years ${period.first}–${period.last} by the ${measureWords} ` +
         `(${fireYearCount} of ${calibration.fireYears.calibrationYears} years).`,
@@ -640,13 +652,11 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     skill: {
       applies: skillApplies,
       hasSkill: skill.hasSkill,
-      title: !skillApplies
-        ? "Hindcast: does not apply to average-year odds"
-        : skill.hasSkill
-          ? "Hindcast: the method showed some skill"
-          : "Hindcast: the method showed no skill",
+      title: !skillApplies ? "Hindcast: does not apply to average-year odds" : "Hindcast",
       verdict: skill.verdict,
-      summary: hindcastAvailable
+      summary: !skillApplies
+        ? "With no index values there is no index-based forecast to verify."
+        : hindcastAvailable
         ? `Tested on ${plural(skill.years, "past year", "past years")}, each forecast without itself and ${skill.exclusion} years either side: ` +
           `Brier skill score ${skill.brierSkillScore === null ? NOT_ENOUGH_DATA : signed(skill.brierSkillScore, 2)}, ` +
           `ROC area ${skill.rocArea === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rocArea, 2)}.`
@@ -662,7 +672,13 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     indices: calibration.indices.map((index) => buildIndexView(index, calibration, outlook)),
     analogs: {
       available: outlook.analogs.length > 0,
-      missingText: outlook.analogs.length > 0 ? null : missing("no calibration year has all current index values"),
+      missingText:
+        outlook.analogs.length > 0
+          ? null
+          : missing(outlook.current.length === 0 ? "no current index values were given" : "no calibration year has all current index values"),
+      caution: outlook.warnings.some((warning) => warning.code === "value-far-outside")
+        ? "A current value lies far outside every past year (see Read with care), so even the nearest years are not much like this season."
+        : null,
       indexNames: analogNames,
       rows: outlook.analogs.map((analog) => ({
         year: String(analog.year),

@@ -15,7 +15,9 @@ export interface ForecastCell {
 /**
  * Chooses the past years a forecast is read from (README, "outlook"):
  * the joint phase of the two indices with the strongest calibrated association (smallest chi-square
- * p) when that joint cell holds at least `jointMinYears` training years; otherwise the current phase
+ * p) when both have a clear link (Benjamini–Hochberg q at most `jointMaxQ`, so an index with no
+ * demonstrated link never moves the odds through a joint cell) and that joint cell holds at least
+ * `jointMinYears` training years; otherwise the current phase
  * of the single strongest index that has at least one training year in that phase; with no current
  * index value, or no past year in any current phase, all training years (climatology). The outlook
  * and the hindcast both use this one rule, so the hindcast verifies what the outlook issues.
@@ -24,16 +26,22 @@ export interface ForecastCell {
  * @param current - the current phase number per index (indices without a current value are absent)
  * @param ranking - indices ordered by association strength (see rankIndicesByAssociation)
  * @param jointMinYears - fewest years a joint cell needs
+ * @param jointMaxQ - largest q-value of an index in a joint cell
  */
 export function forecastCell(
   training: TrainingSet,
   current: ReadonlyMap<string, number>,
   ranking: readonly AssociationRank[],
   jointMinYears: number,
+  jointMaxQ: number,
 ): ForecastCell {
   const usable = ranking.map((rank) => rank.index).filter((index) => current.has(index));
   const [first, second] = usable;
-  if (first !== undefined && second !== undefined) {
+  const clear = (index: string): boolean => {
+    const q = ranking.find((rank) => rank.index === index)?.qValue;
+    return q !== undefined && Number.isFinite(q) && q <= jointMaxQ;
+  };
+  if (first !== undefined && second !== undefined && clear(first) && clear(second)) {
     const joint = cellOf(training, [first, second], [current.get(first) as number, current.get(second) as number]);
     if (joint.years.length >= jointMinYears) return { ...joint, basis: "joint" };
   }

@@ -1,3 +1,4 @@
+import { benjaminiHochberg } from "../stats/benjaminiHochberg.js";
 import { chiSquareIndependence } from "../stats/chiSquareIndependence.js";
 import { phaseCounts, type TrainingSet } from "./buildTrainingSet.js";
 
@@ -5,6 +6,8 @@ export interface AssociationRank {
   readonly index: string;
   readonly chiSquare: number;
   readonly pValue: number;
+  /** Benjamini–Hochberg q-value across the ranked indices; NaN when the p-value is. */
+  readonly qValue: number;
 }
 
 /**
@@ -13,11 +16,13 @@ export interface AssociationRank {
  * so "the strongest calibrated association" has one stated meaning in the outlook and the hindcast.
  */
 export function rankIndicesByAssociation(training: TrainingSet, indices: readonly string[]): AssociationRank[] {
-  const ranks = indices.map((index) => {
+  const tests = indices.map((index) => {
     const table = phaseCounts(training, index).map((cell) => [cell.fireYears, cell.years.length - cell.fireYears]);
     const test = chiSquareIndependence(table);
     return { index, chiSquare: test.chiSquare, pValue: test.pValue };
   });
+  const qValues = benjaminiHochberg(tests.map((test) => test.pValue));
+  const ranks = tests.map((test, i) => ({ ...test, qValue: qValues[i] ?? Number.NaN }));
   return ranks.sort((a, b) => {
     const pa = Number.isNaN(a.pValue) ? Infinity : a.pValue;
     const pb = Number.isNaN(b.pValue) ? Infinity : b.pValue;

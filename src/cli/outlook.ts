@@ -77,26 +77,34 @@ export function formatOutlook(outlook: Outlook): string {
   );
   if (outlook.missing.length > 0) out.push(`  no current value (left out): ${outlook.missing.join(", ")}`);
   out.push("");
-  out.push(
-    `Analog years (nearest in standardized index space): ${outlook.analogs.filter((a) => a.fireYear).length} of ${outlook.analogs.length} were high-fire years` +
-      ` (${formatPercent(outlook.analogFireShare.estimate)}, 95% interval ${formatPercentRange(outlook.analogFireShare.lower, outlook.analogFireShare.upper)})`,
-  );
-  out.push(
-    textTable(
-      ["year", "distance", "high-fire year", "activity", "category"],
-      outlook.analogs.map((analog) => [
-        String(analog.year),
-        fixed(analog.distance, 2),
-        analog.fireYear ? "yes" : "no",
-        fixed(analog.activity, 3),
-        `${analog.category} normal`,
-      ]),
-    ),
-  );
+  if (outlook.analogs.length === 0) {
+    out.push(
+      outlook.current.length === 0
+        ? "Analog years: none (no current index values were given)."
+        : "Analog years: none (no calibration year has values for all of this season's indices).",
+    );
+  } else {
+    out.push(
+      `Analog years (nearest in standardized index space): ${outlook.analogs.filter((a) => a.fireYear).length} of ${outlook.analogs.length} were high-fire years` +
+        ` (${formatPercent(outlook.analogFireShare.estimate)}, 95% interval ${formatPercentRange(outlook.analogFireShare.lower, outlook.analogFireShare.upper)})`,
+    );
+    out.push(
+      textTable(
+        ["year", "distance", "high-fire year", "activity", "category"],
+        outlook.analogs.map((analog) => [
+          String(analog.year),
+          fixed(analog.distance, 2),
+          analog.fireYear ? "yes" : "no",
+          fixed(analog.activity, 3),
+          `${analog.category} normal`,
+        ]),
+      ),
+    );
+  }
   out.push("");
   out.push(
     `Hindcast (${skill.years} years, each left out with ${skill.exclusion} years either side): ` +
-      `Brier skill score ${fixed(skill.brierSkillScore, 3)}, RPSS ${fixed(skill.rpss, 3)}, ROC area ${fixed(skill.rocArea, 3)} ± ${fixed(skill.rocStandardError, 3)}` +
+      `Brier skill score ${fixed(skill.brierSkillScore, 3)}, RPSS ${fixed(skill.rpss, 3)}, ROC area ${fixed(skill.rocArea, 3)} (standard error ${fixed(skill.rocStandardError, 3)})` +
       (skill.reason !== undefined ? ` — not enough data: ${skill.reason}` : ""),
   );
   out.push(`  rule: ${skill.rule}`);

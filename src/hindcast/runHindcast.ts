@@ -25,6 +25,7 @@ export interface HindcastInput {
   readonly measure: "fraction" | "sites";
   readonly exclusion: number;
   readonly jointMinYears: number;
+  readonly jointMaxQ: number;
 }
 
 const CATEGORY_NUMBER: Record<ActivityCategory, 0 | 1 | 2> = { below: 0, near: 1, above: 2 };
@@ -68,8 +69,9 @@ export function runHindcast(input: HindcastInput): Skill {
       const definition = training.definitions.get(index);
       if (value !== undefined && definition !== undefined) current.set(index, classifyPhase(value, definition.cuts));
     }
-    const ranking = rankIndicesByAssociation(training, [...current.keys()]);
-    const cell = forecastCell(training, current, ranking, input.jointMinYears);
+    // Ranked (and q-values taken) over every index of the region, as the outlook does from its calibration.
+    const ranking = rankIndicesByAssociation(training, input.indexSettings.map((settings) => settings.name));
+    const cell = forecastCell(training, current, ranking, input.jointMinYears, input.jointMaxQ);
     const climatology = training.fireYears.years.length / trainingYears.length;
     const shares = training.categories.realisedShares;
     const n = cell.years.length;

@@ -77,47 +77,62 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   }
 
   const ranking: AssociationRank[] = calibration.indices
-    .map((index) => ({ index: index.name, chiSquare: index.contingency.chiSquare ?? NaN, pValue: index.contingency.pValue ?? NaN }))
+    .map((index) => ({
+      index: index.name,
+      chiSquare: index.contingency.chiSquare ?? NaN,
+      pValue: index.contingency.pValue ?? NaN,
+      qValue: index.contingency.qValue ?? NaN,
+    }))
     .sort((a, b) => {
       const pa = Number.isNaN(a.pValue) ? Infinity : a.pValue;
       const pb = Number.isNaN(b.pValue) ? Infinity : b.pValue;
       return pa - pb || (a.index < b.index ? -1 : a.index > b.index ? 1 : 0);
     });
-  const cell = forecastCell(training, currentPhase, ranking, settings.methods.jointMinYears);
+  const { jointMinYears, jointMaxQ } = settings.methods;
+  const cell = forecastCell(training, currentPhase, ranking, jointMinYears, jointMaxQ);
   const labelOf = (index: string, phase: number): string =>
     calibration.indices.find((candidate) => candidate.name === index)?.definition.labels[phase] ?? String(phase);
   const cellWords = cell.indices.map((index, i) => `${index} ${labelOf(index, cell.phases[i] as number)}`).join(" and ");
-  const strongest = ranking.find((rank) => currentPhase.has(rank.index))?.index;
+  const ranked = ranking.filter((rank) => currentPhase.has(rank.index));
+  const strongest = ranked[0];
+  const runnerUp = ranked[1];
+  const qText = (q: number): string => (Number.isFinite(q) ? q.toPrecision(2) : "not computable");
+  const isClear = (rank: AssociationRank | undefined): boolean => rank !== undefined && Number.isFinite(rank.qValue) && rank.qValue <= jointMaxQ;
+  let singleReason = "";
+  if (cell.basis === "single" && runnerUp !== undefined) {
+    singleReason = !isClear(strongest)
+      ? ""
+      : !isClear(runnerUp)
+        ? `; ${runnerUp.index} is not combined with it because its link is not clear, q = ${qText(runnerUp.qValue)}`
+        : `; the joint phase with ${runnerUp.index} had fewer than ${jointMinYears} years`;
+  }
   const basis =
     cell.basis === "joint"
-      ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices with the strongest measured link to high-fire years in the calibration, by chi-square p)`
+      ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices with the strongest measured link to high-fire years in the calibration, by chi-square p, both with a clear link, q at most ${jointMaxQ})`
       : cell.basis === "single"
         ? `the ${cell.years.length} calibration years when ${cellWords} (` +
-          (cell.indices[0] === strongest
+          (cell.indices[0] === strongest?.index
             ? "the index with the strongest measured link to high-fire years in the calibration, by chi-square p"
             : "the most strongly linked index with past years in its current phase") +
-          (currentPhase.size > 1 ? `; the joint phase with the next index had fewer than ${settings.methods.jointMinYears} years)` : ")")
+          `${singleReason})`
         : currentPhase.size === 0
           ? `all ${cell.years.length} calibration years (no current index value was given, so this is the long-term average)`
           : `all ${cell.years.length} calibration years (no past year shared this season's phases, so this is the long-term average)`;
-  // Honesty notes on the basis: an index whose link is not clear in the record, and an index whose
-  // value sits near a phase boundary, each with the odds the other reading would give.
+  // Honesty notes on the basis: no index with a clear link, and an index whose value sits near a
+  // phase boundary, with the odds the other reading would give.
   const probabilityWords = (k: number, n: number): string => {
     const estimate = proportionEstimate(k, n, method);
     return `${formatPercent(estimate.estimate)} (95% interval ${formatPercentRange(estimate.lower, estimate.upper)}, ${n} years)`;
   };
-  cell.indices.forEach((name, position) => {
+  if (cell.basis === "single" && !isClear(strongest) && strongest !== undefined) {
+    warnings.push({
+      code: "no-clear-link",
+      message: `no index has a clear link to high-fire years in this record (the strongest, ${strongest.index}, has chi-square q = ${qText(strongest.qValue)}): these odds may be no better than the average year's`,
+    });
+  }
+  cell.indices.forEach((name) => {
     const calibrated = calibration.indices.find((index) => index.name === name);
     if (calibrated === undefined) return;
-    const q = calibrated.contingency.qValue;
-    if (cell.indices.length === 2 && (q === null || q > 0.05)) {
-      const other = cell.indices[1 - position] as string;
-      const alone = forecastCell(training, new Map([[other, currentPhase.get(other) as number]]), [{ index: other, chiSquare: 0, pValue: 0 }], 0);
-      warnings.push({
-        code: "weak-basis-index",
-        message: `${name}'s link to high-fire years is not clear in the record (chi-square q = ${q === null ? "not computable" : q.toPrecision(2)}); from ${other} ${labelOf(other, currentPhase.get(other) as number)} alone the chance is ${probabilityWords(alone.fireYears, alone.years.length)}`,
-      });
-    }
     const value = currentValue.get(name) as number;
     const cuts = calibrated.definition.cuts;
     if (!isNearBoundary(value, cuts, settings.methods.nearBoundaryMargin)) return;
@@ -128,9 +143,10 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
       .map((candidate) => classifyPhase(candidate, cuts))
       .find((candidate) => candidate !== phase) ?? phase;
     if (otherPhase < 0 || otherPhase >= calibrated.definition.labels.length || otherPhase === phase) return;
-    const shifted = new Map(currentPhase);
+    const shifted = new Map(cell.indices.map((index) => [index, currentPhase.get(index) as number]));
     shifted.set(name, otherPhase);
-    const alternative = forecastCell(training, shifted, [...cell.indices].map((index) => ({ index, chiSquare: 0, pValue: 0 })), 0);
+    const sameIndices = cell.indices.map((index) => ({ index, chiSquare: 0, pValue: 0, qValue: 0 }));
+    const alternative = forecastCell(training, shifted, sameIndices, 0, 1);
     warnings.push({
       code: "basis-near-boundary",
       message: `${name} (${value}) is within ${settings.methods.nearBoundaryMargin} of its ${nearest.toFixed(2)} phase boundary: had it been ${labelOf(name, otherPhase)}, the chance would be ${probabilityWords(alternative.fireYears, alternative.years.length)}`,
@@ -198,6 +214,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     measure: settings.fireYears.measure,
     exclusion: settings.methods.hindcastExclusion,
     jointMinYears: settings.methods.jointMinYears,
+    jointMaxQ: settings.methods.jointMaxQ,
   });
   const hindcast =
     currentPhase.size === 0

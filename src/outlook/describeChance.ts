@@ -62,8 +62,15 @@ interface Chance {
  * "About 1 in 3 chance of a high-fire year (35%, 95% interval 19–54%); in an average year about
  * 1 in 10 (10%)."
  */
-export function headline(fireYear: Chance, baseRate: Pick<Chance, "estimate">): string {
+export function headline(fireYear: Chance & { readonly years?: number; readonly fireYears?: number }, baseRate: Pick<Chance, "estimate">): string {
   if (fireYear.estimate === null) return "Chance of a high-fire year: not enough data.";
+  if (fireYear.fireYears === 0 && fireYear.years !== undefined && fireYear.years > 0 && fireYear.upper !== null) {
+    // "0%" reads as "impossible"; say what was counted and how high the chance may still be.
+    return (
+      `None of the ${fireYear.years} past years like this season was a high-fire year (95% interval up to ${formatPercent(fireYear.upper)}); ` +
+      `in an average year ${describeChance(baseRate.estimate)} (${formatPercent(baseRate.estimate)}).`
+    );
+  }
   const chance = describeChance(fireYear.estimate);
   const interval =
     fireYear.lower !== null && fireYear.upper !== null ? `, 95% interval ${formatPercentRange(fireYear.lower, fireYear.upper)}` : "";
@@ -74,26 +81,29 @@ export function headline(fireYear: Chance, baseRate: Pick<Chance, "estimate">): 
 }
 
 /**
- * Whether this season's chance differs from the average year beyond its uncertainty: "higher" or
- * "lower" when the 95% interval excludes the base rate, otherwise "not distinguishable".
+ * Whether this season's chance differs from the average year beyond the uncertainty of both:
+ * "higher" or "lower" only when the two 95% intervals do not overlap (a cautious reading that
+ * agrees with what a reader sees printed side by side), otherwise "not distinguishable".
  */
-export function comparedWithBase(fireYear: Chance, baseRate: Pick<Chance, "estimate">): "higher" | "lower" | "not distinguishable" {
-  const base = baseRate.estimate;
-  if (base === null || fireYear.lower === null || fireYear.upper === null) return "not distinguishable";
-  if (fireYear.lower > base) return "higher";
-  if (fireYear.upper < base) return "lower";
+export function comparedWithBase(fireYear: Chance, baseRate: Chance): "higher" | "lower" | "not distinguishable" {
+  if (fireYear.lower === null || fireYear.upper === null || baseRate.lower === null || baseRate.upper === null) return "not distinguishable";
+  if (fireYear.lower > baseRate.upper) return "higher";
+  if (fireYear.upper < baseRate.lower) return "lower";
   return "not distinguishable";
 }
 
 /** One plain sentence on how this season compares with an average year, given {@link comparedWithBase}. */
-export function comparisonSentence(fireYear: Chance, baseRate: Pick<Chance, "estimate">): string {
+export function comparisonSentence(fireYear: Chance & { readonly basisIndices?: readonly string[] }, baseRate: Chance): string {
+  if (fireYear.basisIndices !== undefined && fireYear.basisIndices.length === 0) {
+    return "These are the average-year odds: no index phase of this season could be read from past years.";
+  }
   switch (comparedWithBase(fireYear, baseRate)) {
     case "higher":
-      return "The odds are higher than in an average year, beyond their uncertainty.";
+      return "The odds are higher than in an average year, beyond the uncertainty of both.";
     case "lower":
-      return "The odds are lower than in an average year, beyond their uncertainty.";
+      return "The odds are lower than in an average year, beyond the uncertainty of both.";
     default:
-      return "The interval includes the average-year chance: this season may not differ from an average year.";
+      return "The two intervals overlap: this season may not differ from an average year.";
   }
 }
 

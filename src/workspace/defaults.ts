@@ -15,6 +15,7 @@ export const DEFAULT_METHODS: MethodSettings = Object.freeze({
   stabilityStep: 10,
   analogs: 10,
   jointMinYears: 10,
+  jointMaxQ: 0.05,
   nearBoundaryMargin: 0.1,
   independenceKm: 40,
   hindcastExclusion: 2,

@@ -107,6 +107,7 @@ const methodsSchema = z
     stabilityStep: integer(1).optional(),
     analogs: integer(1).optional(),
     jointMinYears: integer(1).optional(),
+    jointMaxQ: z.number().gt(0).max(1).optional(),
     nearBoundaryMargin: z.number().min(0).optional(),
     independenceKm: z.number().min(0).optional(),
     hindcastExclusion: integer(0).optional(),

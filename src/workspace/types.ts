@@ -23,6 +23,8 @@ export interface MethodSettings {
   readonly analogs: number;
   /** Fewest calibration years a joint phase cell needs to be used for the outlook (default 10). */
   readonly jointMinYears: number;
+  /** An index joins the joint phase only when its chi-square q-value (Benjamini–Hochberg across indices) is at most this (default 0.05). */
+  readonly jointMaxQ: number;
   /** Margin (index units) within which a value is reported as near a phase boundary (default 0.1). */
   readonly nearBoundaryMargin: number;
   /** Sites closer than this many km are reported as possibly not independent (default 40). */

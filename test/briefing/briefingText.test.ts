@@ -141,7 +141,8 @@ describe("buildBriefingView(inputs)", () => {
     // 17 high-fire years of 83: Wilson 95% 13.2–30.0% (Wilson 1927; computed in the fixture).
     expect(view.headline.sentence).toBe("About 1 in 5 chance of a high-fire year (20%, 95% interval 13–30%); in an average year about 1 in 10 (10%).");
     // 13.2% > base rate 30/291 = 10.3%: the interval excludes the average year.
-    expect(view.headline.comparison).toBe("The odds are higher than in an average year, beyond their uncertainty. That is about 2.0 times the chance in an average year.");
+    // 20% (13–30%) against 10% (7–14%): the intervals overlap, so no "higher" and no ratio is claimed.
+    expect(view.headline.comparison).toBe("The two intervals overlap: this season may not differ from an average year.");
     expect(view.headline.chance.percent).toBe("20%");
     expect(view.headline.chance.interval).toBe("95% interval 13–30%");
     expect(view.headline.basis).toBe("Based on the ENSO warm phase: 17 high-fire years in 83 past years with the same phase.");
@@ -188,7 +189,7 @@ describe("buildBriefingView(inputs)", () => {
     expect(warned.readWithCare).toEqual(["ENSO = 40 is 46.5 standard deviations from its calibration mean: check the value."]);
     const html = renderBriefingHtml(warned);
     const headline = html.indexOf("headline-sentence");
-    const skill = html.indexOf("Hindcast: the method showed some skill");
+    const skill = html.indexOf("Some skill: in the hindcast");
     const care = html.indexOf("Read with care");
     const cautions = html.indexOf('aria-label="Cautions"');
     expect(headline).toBeGreaterThan(0);

@@ -106,7 +106,7 @@ describe("PdfPrinter.print(briefing html)", () => {
   it("says on page 1 that a method without skill has none", async () => {
     const { pages } = await printSample({ noSkill: true });
     const first = (pages[0] ?? "").replace(/\s+/g, " ");
-    expect(first).toContain("Hindcast: the method showed no skill");
+    expect(first).toContain("Hindcast. No skill: in the hindcast");
     expect(first).toContain("Treat these odds as no better than the average year.");
   });
 

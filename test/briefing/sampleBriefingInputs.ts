@@ -242,7 +242,7 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
           { index: "NAO", value: 0.46, label: "positive", nearBoundary: true, z: 0.5, source: "--values" },
         ],
     missing: options.noCurrentValues ? ["ENSO", "NAO"] : [],
-    fireYear: { ...fireYearEstimate, basis: "the ENSO warm phase", basisIndices: ["ENSO"], years: 83, fireYears: 17, comparedWithBase: "higher" },
+    fireYear: { ...fireYearEstimate, basis: "the ENSO warm phase", basisIndices: ["ENSO"], years: 83, fireYears: 17, comparedWithBase: "not distinguishable" },
     perIndex: [
       { index: "ENSO", label: "warm", probability: estimate(17, 83, false), years: 83, fireYears: 17 },
       { index: "NAO", label: "positive", probability: estimate(13, 97, false), years: 97, fireYears: 13 },

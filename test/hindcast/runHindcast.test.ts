@@ -18,6 +18,7 @@ function hindcastInput(options: SyntheticOptions): HindcastInput {
     measure: "fraction",
     exclusion: 2,
     jointMinYears: 10,
+    jointMaxQ: 0.05,
   };
 }
 

@@ -22,10 +22,17 @@ describe("headline(fireYear, baseRate)", () => {
     );
     expect(formatPercentRange(0.191, 0.412)).toBe("19–41%");
   });
-  it("says when the interval includes the average-year chance", () => {
-    expect(comparedWithBase({ estimate: 0.35, lower: 0.19, upper: 0.54 }, { estimate: 0.1 })).toBe("higher");
-    expect(comparedWithBase({ estimate: 0.02, lower: 0.01, upper: 0.15 }, { estimate: 0.1 })).toBe("not distinguishable");
-    expect(comparedWithBase({ estimate: 0.01, lower: 0.0, upper: 0.06 }, { estimate: 0.1 })).toBe("lower");
-    expect(comparisonSentence({ estimate: 0.02, lower: 0.01, upper: 0.15 }, { estimate: 0.1 })).toMatch(/may not differ from an average year/);
+  it("calls a season higher or lower only when the two intervals do not overlap", () => {
+    const base = { estimate: 0.103, lower: 0.073, upper: 0.143 };
+    expect(comparedWithBase({ estimate: 0.35, lower: 0.19, upper: 0.54 }, base)).toBe("higher");
+    expect(comparedWithBase({ estimate: 0.04, lower: 0.02, upper: 0.102 }, base)).toBe("not distinguishable");
+    expect(comparedWithBase({ estimate: 0.01, lower: 0.0, upper: 0.06 }, base)).toBe("lower");
+    expect(comparisonSentence({ estimate: 0.02, lower: 0.01, upper: 0.15 }, base)).toMatch(/may not differ from an average year/);
+  });
+
+  it("does not print 0% for a phase with no high-fire year", () => {
+    expect(headline({ estimate: 0, lower: 0, upper: 0.117, years: 29, fireYears: 0 }, { estimate: 0.103 })).toBe(
+      "None of the 29 past years like this season was a high-fire year (95% interval up to 12%); in an average year about 1 in 10 (10%).",
+    );
   });
 });
