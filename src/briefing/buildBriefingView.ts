@@ -260,7 +260,8 @@ function chanceComparison(chance: number | null, base: number | null): string {
   if (shownChance === 0) return "";
   if (ratio >= 1.25) return `That is about ${formatDecimal(ratio, 1)} times the chance in an average year.`;
   if (ratio <= 0.8) return `That is lower than in an average year (about ${formatDecimal(ratio, 1)} times the average chance).`;
-  return "That is close to the chance in an average year.";
+  // Between 0.8 and 1.25 times: no ratio sentence (it would read "close to average" beside "higher").
+  return "";
 }
 
 function lastYearWithValue(series: { years: readonly number[]; values: readonly (number | null)[] }): number | null {

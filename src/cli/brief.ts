@@ -128,6 +128,12 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   printerPromise.catch(() => undefined); // observed below; never an unhandled rejection
   try {
     const workspace = await loadWorkspace(located(region, context.cwd));
+    // Never overwrite the region's own inputs with a briefing.
+    for (const target of [outGiven, htmlGiven]) {
+      if (target === null) continue;
+      const input = workspace.files.find((file) => resolve(workspace.root, file.path) === resolve(target));
+      if (input !== undefined) throw new UsageError(`cannot write ${target}: it is the region's input file ${input.path}`);
+    }
     const request = resolveOutlookRequest(workspace, options, context.today);
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
     const outlook = buildOutlook(workspace, calibration, request);

@@ -62,7 +62,9 @@ export function resolveOutlookRequest(workspace: Workspace, options: OutlookOpti
         throw new UsageError(`--values: unknown index "${name}"; this region's indices are ${known.join(", ")}`);
       }
       if (given.has(name)) throw new UsageError(`--values: ${name} is given more than once`);
-      if (!DECIMAL.test(text)) throw new UsageError(`--values: ${name} must be a decimal number such as 1.2 or -0.5, found "${text}"`);
+      if (!DECIMAL.test(text) || !Number.isFinite(Number(text))) {
+        throw new UsageError(`--values: ${name} must be a decimal number such as 1.2 or -0.5, found "${text}"`);
+      }
       given.add(name);
       values[name] = Number(text);
       sources[name] = "--values";

@@ -88,7 +88,10 @@ export async function checkOutputTargets(paths: readonly string[]): Promise<void
   const seen = new Map<string, string>();
   for (const path of paths) {
     const key = resolve(path);
-    if (seen.has(key)) throw new OutputPathError(path, `it is named twice (also as ${seen.get(key) ?? path})`);
+    const earlier = seen.get(key);
+    if (earlier !== undefined) {
+      throw new OutputPathError(path, earlier === path ? "it is named twice" : `it is named twice (also as ${earlier})`);
+    }
     seen.set(key, path);
   }
   const inodes = new Map<string, string>();

@@ -94,40 +94,45 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     calibration.indices.find((candidate) => candidate.name === index)?.definition.labels[phase] ?? String(phase);
   const cellWords = cell.indices.map((index, i) => `${index} ${labelOf(index, cell.phases[i] as number)}`).join(" and ");
   const ranked = ranking.filter((rank) => currentPhase.has(rank.index));
-  const strongest = ranked[0];
-  const runnerUp = ranked[1];
   const qText = (q: number): string => (Number.isFinite(q) ? q.toPrecision(2) : "not computable");
+  const rankOf = (index: string): AssociationRank | undefined => ranking.find((rank) => rank.index === index);
   const isClear = (rank: AssociationRank | undefined): boolean => rank !== undefined && Number.isFinite(rank.qValue) && rank.qValue <= jointMaxQ;
+  const used = cell.indices[0] === undefined ? undefined : rankOf(cell.indices[0]);
+  // Why a single index was used, said about the index actually used and the next one in rank order.
   let singleReason = "";
-  if (cell.basis === "single" && runnerUp !== undefined) {
-    singleReason = !isClear(strongest)
-      ? ""
-      : !isClear(runnerUp)
-        ? `; ${runnerUp.index} is not combined with it because its link is not clear, q = ${qText(runnerUp.qValue)}`
-        : `; the joint phase with ${runnerUp.index} had fewer than ${jointMinYears} years`;
+  if (cell.basis === "single" && used !== undefined) {
+    const skipped = ranked.slice(0, ranked.findIndex((rank) => rank.index === used.index));
+    const next = ranked.find((rank) => rank.index !== used.index && !skipped.includes(rank));
+    if (skipped.length > 0) {
+      singleReason = `; no past year shared this season's phase of ${skipped.map((rank) => rank.index).join(" or ")}`;
+    } else if (next !== undefined && isClear(used)) {
+      singleReason = !isClear(next)
+        ? `; ${next.index} is not combined with it because its link is not clear, q = ${qText(next.qValue)}`
+        : `; the joint phase with ${next.index} had fewer than ${jointMinYears} years`;
+    }
   }
   const basis =
     cell.basis === "joint"
       ? `the ${cell.years.length} calibration years when ${cellWords} (the two indices with the strongest measured link to high-fire years in the calibration, by chi-square p, both with a clear link, q at most ${jointMaxQ})`
       : cell.basis === "single"
         ? `the ${cell.years.length} calibration years when ${cellWords} (` +
-          (cell.indices[0] === strongest?.index
+          (used !== undefined && used.index === ranked[0]?.index
             ? "the index with the strongest measured link to high-fire years in the calibration, by chi-square p"
             : "the most strongly linked index with past years in its current phase") +
           `${singleReason})`
         : currentPhase.size === 0
           ? `all ${cell.years.length} calibration years (no current index value was given, so this is the long-term average)`
           : `all ${cell.years.length} calibration years (no past year shared this season's phases, so this is the long-term average)`;
-  // Honesty notes on the basis: no index with a clear link, and an index whose value sits near a
-  // phase boundary, with the odds the other reading would give.
+  // Honesty notes on the basis: the index behind the odds without a clear link, and an index whose
+  // value sits near a phase boundary, with the odds the outlook would give on the other side.
   const probabilityWords = (k: number, n: number): string => {
     const estimate = proportionEstimate(k, n, method);
     return `${formatPercent(estimate.estimate)} (95% interval ${formatPercentRange(estimate.lower, estimate.upper)}, ${n} years)`;
   };
-  if (cell.basis === "single" && !isClear(strongest) && strongest !== undefined) {
+  if (cell.basis === "single" && used !== undefined && !isClear(used)) {
     warnings.push({
       code: "no-clear-link",
-      message: `no index has a clear link to high-fire years in this record (the strongest, ${strongest.index}, has chi-square q = ${qText(strongest.qValue)}): these odds may be no better than the average year's`,
+      message: `the odds rest on ${used.index}, whose link to high-fire years is not clear in this record (chi-square q = ${qText(used.qValue)}): they may be no better than the average year's`,
     });
   }
   cell.indices.forEach((name) => {
@@ -143,10 +148,10 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
       .map((candidate) => classifyPhase(candidate, cuts))
       .find((candidate) => candidate !== phase) ?? phase;
     if (otherPhase < 0 || otherPhase >= calibrated.definition.labels.length || otherPhase === phase) return;
-    const shifted = new Map(cell.indices.map((index) => [index, currentPhase.get(index) as number]));
+    // The odds the outlook itself would give with this index on the other side of the boundary.
+    const shifted = new Map(currentPhase);
     shifted.set(name, otherPhase);
-    const sameIndices = cell.indices.map((index) => ({ index, chiSquare: 0, pValue: 0, qValue: 0 }));
-    const alternative = forecastCell(training, shifted, sameIndices, 0, 1);
+    const alternative = forecastCell(training, shifted, ranking, jointMinYears, jointMaxQ);
     warnings.push({
       code: "basis-near-boundary",
       message: `${name} (${value}) is within ${settings.methods.nearBoundaryMargin} of its ${nearest.toFixed(2)} phase boundary: had it been ${labelOf(name, otherPhase)}, the chance would be ${probabilityWords(alternative.fireYears, alternative.years.length)}`,

@@ -71,6 +71,12 @@ export function headline(fireYear: Chance & { readonly years?: number; readonly 
       `in an average year ${describeChance(baseRate.estimate)} (${formatPercent(baseRate.estimate)}).`
     );
   }
+  if (fireYear.fireYears !== undefined && fireYear.years !== undefined && fireYear.years > 0 && fireYear.fireYears === fireYear.years && fireYear.lower !== null) {
+    return (
+      `Every one of the ${fireYear.years} past years like this season was a high-fire year (95% interval down to ${formatPercent(fireYear.lower)}); ` +
+      `in an average year ${describeChance(baseRate.estimate)} (${formatPercent(baseRate.estimate)}).`
+    );
+  }
   const chance = describeChance(fireYear.estimate);
   const interval =
     fireYear.lower !== null && fireYear.upper !== null ? `, 95% interval ${formatPercentRange(fireYear.lower, fireYear.upper)}` : "";

@@ -98,26 +98,26 @@ const outlookSchema = z.strictObject({
 const methodsSchema = z
   .strictObject({
     interval: z.enum(["wilson", "jeffreys"]).optional(),
-    seaFirstLag: z.number().int().optional(),
-    seaLastLag: z.number().int().optional(),
+    seaFirstLag: z.number().int().min(-100).max(100).optional(),
+    seaLastLag: z.number().int().min(-100).max(100).optional(),
     seaDraws: integer(1000).max(1_000_000, { error: "must be at most 1000000" }).optional(),
-    blockYears: integer(1).optional(),
-    blockMaxLag: integer(0).optional(),
-    stabilityWindow: integer(2).optional(),
-    stabilityStep: integer(1).optional(),
-    analogs: integer(1).optional(),
-    jointMinYears: integer(1).optional(),
+    blockYears: integer(1).max(100).optional(),
+    blockMaxLag: integer(0).max(100).optional(),
+    stabilityWindow: integer(2).max(10000).optional(),
+    stabilityStep: integer(1).max(10000).optional(),
+    analogs: integer(1).max(1000).optional(),
+    jointMinYears: integer(1).max(10000).optional(),
     jointMaxQ: z.number().gt(0).max(1).optional(),
     nearBoundaryMargin: z.number().min(0).optional(),
     independenceKm: z.number().min(0).optional(),
-    hindcastExclusion: integer(0).optional(),
-    smallSampleYears: integer(1).optional(),
+    hindcastExclusion: integer(0).max(100).optional(),
+    smallSampleYears: integer(1).max(10000).optional(),
   })
   .superRefine((methods, ctx) => {
     const first = methods.seaFirstLag ?? DEFAULT_METHODS.seaFirstLag;
     const last = methods.seaLastLag ?? DEFAULT_METHODS.seaLastLag;
     if (first > 0 || last < 0) {
-      ctx.addIssue({ code: "custom", message: "the SEA lags must run from ≤ 0 to ≥ 0", path: [methods.seaFirstLag !== undefined ? "seaFirstLag" : "seaLastLag"] });
+      ctx.addIssue({ code: "custom", message: "the SEA lags must run from 0 or below to 0 or above", path: [methods.seaFirstLag !== undefined ? "seaFirstLag" : "seaLastLag"] });
     }
   });
 

@@ -140,7 +140,6 @@ describe("buildBriefingView(inputs)", () => {
   it("states the headline in words against the base rate, with the interval", () => {
     // 17 high-fire years of 83: Wilson 95% 13.2–30.0% (Wilson 1927; computed in the fixture).
     expect(view.headline.sentence).toBe("About 1 in 5 chance of a high-fire year (20%, 95% interval 13–30%); in an average year about 1 in 10 (10%).");
-    // 13.2% > base rate 30/291 = 10.3%: the interval excludes the average year.
     // 20% (13–30%) against 10% (7–14%): the intervals overlap, so no "higher" and no ratio is claimed.
     expect(view.headline.comparison).toBe("The two intervals overlap: this season may not differ from an average year.");
     expect(view.headline.chance.percent).toBe("20%");

@@ -124,4 +124,43 @@ describe("buildOutlook(workspace, calibration, request)", () => {
     expect(withB.fireYear.basisIndices).toEqual(["B"]);
     expect(withB.fireYear.estimate).not.toBeNull();
   });
+
+  it("says why a weak index is not combined, and warns when the odds rest on an index without a clear link", () => {
+    const strong = buildOutlook(workspace, calibration, { values: { A: 1.4, B: 0.1 }, issued: "2027-03-10", season: 2027 });
+    expect(strong.fireYear.basisIndices).toEqual(["A"]);
+    expect(strong.fireYear.basis).toMatch(/B is not combined with it because its link is not clear, q = /);
+    expect(strong.warnings.map((w) => w.code)).not.toContain("no-clear-link");
+    const weak = buildOutlook(workspace, calibration, { values: { B: 0.1 }, issued: "2027-03-10", season: 2027 });
+    expect(weak.fireYear.basisIndices).toEqual(["B"]);
+    expect(weak.warnings.find((w) => w.code === "no-clear-link")?.message).toMatch(/^the odds rest on B, whose link to high-fire years is not clear/);
+  });
+
+  it("gives, for a value near a phase boundary, the odds the outlook itself would give on the other side", () => {
+    const near = buildOutlook(workspace, calibration, { values: { A: 0.45 }, issued: "2027-03-10", season: 2027 });
+    const other = buildOutlook(workspace, calibration, { values: { A: 0.55 }, issued: "2027-03-10", season: 2027 });
+    const note = near.warnings.find((w) => w.code === "basis-near-boundary")?.message ?? "";
+    expect(note).toContain("had it been high");
+    expect(note).toContain(`the chance would be ${Math.round((other.fireYear.estimate as number) * 100)}%`);
+    expect(note).toContain(`${other.fireYear.years} years)`);
+  });
+});
+
+describe("buildOutlook when the strongest index's phase has no past year", () => {
+  it("names the index actually used and why", () => {
+    // A fourth phase of A beyond 5 is empty in a standard-normal record, while A keeps its measured link.
+    const base = syntheticWorkspace({ effect: 1.6, seed: 11 });
+    const wide = {
+      ...base,
+      settings: {
+        ...base.settings,
+        indices: base.settings.indices.map((index) =>
+          index.name === "A" ? { ...index, phases: { kind: "cuts" as const, cuts: [-0.5, 0.5, 5], labels: ["low", "mid", "high", "extreme"] } } : index,
+        ),
+      },
+    };
+    const outlook = buildOutlook(wide, runCalibration(wide), { values: { A: 10, B: 0.1 }, issued: "2027-03-10", season: 2027 });
+    expect(outlook.fireYear.basisIndices).toEqual(["B"]);
+    expect(outlook.fireYear.basis).toMatch(/the most strongly linked index with past years in its current phase; no past year shared this season's phase of A\)$/);
+    expect(outlook.warnings.map((w) => w.code)).toContain("no-clear-link");
+  });
 });

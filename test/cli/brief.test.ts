@@ -1,4 +1,4 @@
-import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
+import { cpSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, relative, resolve } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -198,8 +198,22 @@ describe("checkOutputTargets(paths)", () => {
     writeFileSync(join(folder, "plain.txt"), "x");
     await expect(checkOutputTargets([join(folder, "a.pdf"), join(folder, "b.html")])).resolves.toBeUndefined();
     await expect(checkOutputTargets([join(folder, "a.pdf"), join(folder, "sub", "..", "a.pdf")])).rejects.toThrow(/it is named twice/);
+    await expect(checkOutputTargets([join(folder, "a.pdf"), join(folder, "a.pdf")])).rejects.toThrow(/it is named twice$/);
+    await expect(checkOutputTargets(["a.pdf", join(process.cwd(), "a.pdf")])).rejects.toThrow(/it is named twice \(also as a\.pdf\)/);
     await expect(checkOutputTargets([join(folder, "no", "a.pdf")])).rejects.toThrow(`the folder ${join(folder, "no")} does not exist`);
     await expect(checkOutputTargets([join(folder, "sub")])).rejects.toThrow(`cannot write ${join(folder, "sub")}: it is a folder`);
     await expect(checkOutputTargets([join(folder, "plain.txt", "a.pdf")])).rejects.toThrow(`${join(folder, "plain.txt")} is not a folder`);
+  });
+});
+
+describe("runBrief(region, { out }) on the region's own files", () => {
+  it("refuses to overwrite an input file of the region and leaves it as it was", async () => {
+    const region = join(work, "own-region");
+    cpSync(DEMO, region, { recursive: true });
+    const before = readFileSync(join(region, "fire-events.csv"));
+    await expect(runBrief(region, { out: join(region, "fire-events.csv") }, context())).rejects.toThrow(
+      /cannot write .*fire-events\.csv: it is the region's input file fire-events\.csv/,
+    );
+    expect(readFileSync(join(region, "fire-events.csv")).equals(before)).toBe(true);
   });
 });

@@ -32,6 +32,14 @@ describe("runHindcast(input)", () => {
     expect(skill.verdict).toMatch(/^Some skill/);
   });
 
+  it("applies the q gate of the joint phase in every held-out calibration", () => {
+    const input = hindcastInput({ effect: 1.6, seed: 11 });
+    // The noise index B never reaches q ≤ 1e-12, so no held-out forecast may come from a joint phase…
+    expect(runHindcast({ ...input, jointMaxQ: 1e-12 }).forecasts.some((forecast) => forecast.basis === "joint")).toBe(false);
+    // …while without the gate B joins A whenever the joint cell is large enough.
+    expect(runHindcast({ ...input, jointMaxQ: 1 }).forecasts.every((forecast) => forecast.basis === "joint")).toBe(true);
+  });
+
   it("says plainly that a pure-noise region has no skill", () => {
     for (const seed of [3, 5, 8]) {
       const skill = runHindcast(hindcastInput({ effect: 0, seed }));
