@@ -213,13 +213,13 @@ describe("didYouMean(unknown, known)", () => {
 });
 
 describe("parseRegionJson(text, file) limits", () => {
-  it("rejects calibration years beyond ±9999 and more than a million random draws", () => {
+  it("rejects calibration years beyond ±9999, lags beyond ±100 and more than a million random draws", () => {
     const text = JSON.stringify({
       name: "x",
       calibration: { first: -1e15, last: 1700 },
       fireRecord: { activity: "a.csv" },
       indices: { E: { file: "i.csv", cuts: [0], labels: ["lo", "hi"] } },
-      methods: { seaDraws: 1e9 },
+      methods: { seaDraws: 1e9, seaFirstLag: -300000000, blockMaxLag: 1e9 },
     });
     let problems: readonly { message: string }[] = [];
     try {
@@ -229,7 +229,9 @@ describe("parseRegionJson(text, file) limits", () => {
     }
     expect(problems.map((p) => p.message)).toEqual([
       expect.stringMatching(/"calibration.first" must be at least -9999/),
+      expect.stringMatching(/"methods.seaFirstLag" .*-100/),
       expect.stringMatching(/"methods.seaDraws" must be at most 1000000/),
+      expect.stringMatching(/"methods.blockMaxLag" .*100/),
     ]);
   });
 });
