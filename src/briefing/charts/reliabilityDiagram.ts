@@ -6,6 +6,7 @@ import {
   axisBottom,
   axisVertical,
   type ChartOptions,
+  estimateTextWidth,
   isDrawable,
   legend,
   legendExtraHeight,
@@ -38,16 +39,23 @@ export interface ReliabilityDiagramInput {
   readonly climatology: number | null;
 }
 
-const MARGINS = { top: 30, right: 16, bottom: 80, left: 60 };
+const MARGINS = { top: 40, right: 16, bottom: 80, left: 60 };
+/** Largest dot radius, px. */
+const MAX_RADIUS = 11;
+/** Gap between the plot's edges and the 0% and 100% positions, so no dot covers a tick label. */
+const INSET = MAX_RADIUS + 2;
+/** Font size of the row of counts and its label. */
+const COUNT_SIZE = 10;
 
 /**
  * Reliability diagram: observed frequency of fire years against mean forecast probability per
  * bin, with the diagonal of perfect reliability (dashed), the climatological frequency as a
  * horizontal and a vertical teal line, and one dot per non-empty bin whose area is proportional to
- * its number of hindcasts; the counts (integers) are written in a row above the plot at each
- * bin's centre, after the letter "n".
+ * its number of hindcasts; the counts (integers) are written in a row above the plot, each above
+ * its dot (nudged right only where two counts would overlap), under the words "Years per bin".
  *
- * Both axes run 0–100% with ticks every 20% (whole-percent format). Bins with a null mean
+ * Both axes run 0–100% with ticks every 20% (whole-percent format); 0% and 100% sit a dot's
+ * radius inside the plot's edges, so the largest dot never covers a tick label. Bins with a null mean
  * forecast or observed frequency, or a zero count, are left out; with none left the plot shows
  * "not enough data" over the axes.
  *
@@ -72,14 +80,14 @@ export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, opt
     ...MARGINS,
     bottom: MARGINS.bottom + legendExtraHeight(entries, width),
   }));
-  const x = scaleLinear().domain([0, 1]).range([frame.left, frame.right]).clamp(true);
-  const y = scaleLinear().domain([0, 1]).range([frame.bottom, frame.top]).clamp(true);
+  const x = scaleLinear().domain([0, 1]).range([frame.left + INSET, frame.right - INSET]).clamp(true);
+  const y = scaleLinear().domain([0, 1]).range([frame.bottom - INSET, frame.top + INSET]).clamp(true);
   const bins = input.bins.filter(
     (bin): bin is ReliabilityChartBin & { meanForecast: number; observedFrequency: number } =>
       isDrawable(bin.meanForecast) && isDrawable(bin.observedFrequency) && isDrawable(bin.count) && bin.count > 0,
   );
   const maxCount = Math.max(1, ...bins.map((bin) => bin.count));
-  const radius = scaleSqrt().domain([0, maxCount]).range([0, 11]);
+  const radius = scaleSqrt().domain([0, maxCount]).range([0, MAX_RADIUS]);
 
   let body = axisBottom(x, frame, { title: "Forecast chance of a high-fire year", ticks: 5, format: ".0%", grid: true });
   body += axisVertical(y, frame, { title: "Observed frequency", ticks: 5, format: ".0%", grid: true });
@@ -99,13 +107,17 @@ export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, opt
     body += `<circle${attrs({ cx, cy, r, fill: palette.estimate, "fill-opacity": 0.85, stroke: "#ffffff", "stroke-width": 1 })}/>`;
   }
   if (bins.length > 0) {
-    body += svgText(frame.left - 8, frame.top - 9, "n", { "text-anchor": "end", "font-size": 10, fill: palette.inkMuted });
+    body += svgText(frame.left, frame.top - 24, "Years per bin", { "font-size": COUNT_SIZE, fill: palette.inkMuted });
   }
+  let previousRight = Number.NEGATIVE_INFINITY;
   for (const bin of bins) {
-    const middle = isDrawable(bin.lower) && isDrawable(bin.upper) ? (bin.lower + bin.upper) / 2 : bin.meanForecast;
-    body += svgText(x(middle), frame.top - 9, String(Math.round(bin.count)), {
+    const label = String(Math.round(bin.count));
+    const half = estimateTextWidth(label, COUNT_SIZE) / 2;
+    const centre = Math.max(x(bin.meanForecast), previousRight + 4 + half);
+    previousRight = centre + half;
+    body += svgText(centre, frame.top - 8, label, {
       "text-anchor": "middle",
-      "font-size": 10,
+      "font-size": COUNT_SIZE,
       fill: palette.inkMuted,
     });
   }
