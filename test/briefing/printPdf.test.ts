@@ -101,6 +101,10 @@ describe("PdfPrinter.print(briefing html)", () => {
     expect(text).toContain("Inline HTML stays text: <b>not bold</b> & code");
     expect(text).toContain("a0".repeat(32)); // SHA-256 of an input file
     expect(text).toContain("firephase 9.8.7");
+    // Chart labels on a halo are printed once: a stroked halo would put each of them in the text layer twice.
+    const scatterPage = pages.find((page) => page.includes("Phase space")) ?? "";
+    expect(scatterPage.replace(/\s+/g, " ").match(/This season/g)).toHaveLength(1);
+    expect(text).not.toMatch(/ENSO phase ENSO phase/);
   });
 
   it("says on page 1 that a method without skill has none", async () => {

@@ -16,6 +16,7 @@ import {
   notEnoughData,
   svgOpen,
   svgText,
+  svgTextOnPanel,
 } from "./svgParts.js";
 
 /** Input of {@link categoryOddsBar}: the chance of each activity category this season and in an average year. */
@@ -120,12 +121,9 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
     if (isDrawable(average)) {
       const ay = y(Math.min(1, Math.max(0, average)));
       body += `<path${attrs({ class: "average-year", d: diamond, transform: `translate(${coord(middle)} ${coord(ay)})`, fill: "#ffffff", stroke: palette.ink, "stroke-width": 1.6 })}/>`;
-      body += svgText(start + x.bandwidth() + 4, ay + 4, formatPercent(average), {
+      body += svgTextOnPanel(start + x.bandwidth() + 4, ay + 4, formatPercent(average), {
         "font-size": SMALL_SIZE,
         fill: palette.ink,
-        stroke: "#ffffff",
-        "stroke-width": 3,
-        "paint-order": "stroke",
       });
     }
   }

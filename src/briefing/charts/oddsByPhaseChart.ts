@@ -14,6 +14,7 @@ import {
   notEnoughData,
   svgOpen,
   svgText,
+  svgTextOnPanel,
 } from "./svgParts.js";
 
 /** A probability with its interval; any part may be null where it could not be computed. */
@@ -107,10 +108,7 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
     .paddingOuter(0.2);
 
   let body = axisBottom(x, frame, { title: "Chance of a high-fire year", ticks: 10, format: ".0%", grid: true });
-  body += svgText(LEGEND_INSET, frame.top + 8, `${input.indexName} phase`, {
-    stroke: "#ffffff",
-    "stroke-width": 4,
-    "paint-order": "stroke",
+  body += svgTextOnPanel(LEGEND_INSET, frame.top + 8, `${input.indexName} phase`, {
     "font-size": 12,
     "font-weight": 600,
   });

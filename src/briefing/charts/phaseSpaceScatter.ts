@@ -17,6 +17,7 @@ import {
   paddedExtent,
   svgOpen,
   svgText,
+  svgTextOnPanel,
 } from "./svgParts.js";
 
 /** One calibration year in {@link phaseSpaceScatter}. */
@@ -111,7 +112,8 @@ const diamond = symbol(symbolDiamond, 260);
  * seasonal index values — other years small grey circles, fire years amber triangles — with the
  * phase cut points as dashed lines and this season as a large purple diamond labelled
  * "This season". The label goes where it covers the fewest points and cut lines (of 16 nearby
- * places), joined to the diamond by a short leader line when it sits away from it.
+ * places), joined to the diamond by a short leader line when it sits away from it; the words
+ * appear once (on a white panel, not in the legend), so the PDF's text layer holds them once.
  *
  * Axis ticks use d3's default tick format for the domain (fixed decimals per axis). Points with a
  * null or non-finite coordinate are left out; with no drawable point the plot shows "not enough
@@ -131,15 +133,12 @@ const diamond = symbol(symbolDiamond, 260);
  * Association 79(387):531–554 (position on common scales; redundant shape coding).
  */
 export function phaseSpaceScatter(input: Readonly<PhaseSpaceScatterInput>, options?: ChartOptions): string {
-  const currentKnown = input.current !== null && isDrawable(input.current.x) && isDrawable(input.current.y);
   const entries: LegendEntry[] = [
     { symbol: `<circle${attrs({ r: 3, fill: palette.otherYear })}/>`, label: "Other years" },
     { symbol: `<path${attrs({ d: triangle() ?? "", fill: palette.fireYear, stroke: palette.ink, "stroke-width": 0.6 })}/>`, label: "High-fire years" },
     { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-dasharray": "5 4" })}/>`, label: "Phase cuts" },
   ];
-  if (currentKnown) {
-    entries.push({ symbol: `<path${attrs({ d: symbol(symbolDiamond, 90)() ?? "", fill: palette.current })}/>`, label: "This season" });
-  }
+  // This season's diamond carries its own label, so the legend does not repeat "This season".
   const frame = makeFrame(options, { width: 680, height: 320 }, (width) => ({
     ...MARGINS,
     bottom: MARGINS.bottom + legendExtraHeight(entries, width),
@@ -193,14 +192,11 @@ export function phaseSpaceScatter(input: Readonly<PhaseSpaceScatterInput>, optio
       const uy = (spot.anchorY - cy) / distance;
       body += `<line${attrs({ class: "leader", x1: cx + ux * 11, y1: cy + uy * 11, x2: spot.anchorX - ux * 2, y2: spot.anchorY - uy * 2, stroke: palette.current, "stroke-width": 1.2 })}/>`;
     }
-    body += svgText(spot.textX, spot.textY, "This season", {
+    body += svgTextOnPanel(spot.textX, spot.textY, "This season", {
       "text-anchor": spot.anchor,
       "font-size": LABEL_FONT,
       "font-weight": 700,
       fill: palette.current,
-      stroke: "#ffffff",
-      "stroke-width": 3,
-      "paint-order": "stroke",
     });
   }
 

@@ -185,6 +185,41 @@ export function svgText(
 }
 
 /**
+ * A label on a white panel: a `<text>` preceded by a white rectangle sized from the label's
+ * estimated width, so the label stays readable over grid lines and marks. A stroked halo
+ * (paint-order: stroke) is not used because PDF printers draw such text twice, which doubles it
+ * in the PDF's text layer (copy, search, screen readers).
+ *
+ * Panel width = estimated text width (×1.1 when bold) + 2 × padding; height = 1.05 × font size
+ * + padding, placed from the text anchor ("start", "middle" or "end") and the baseline.
+ *
+ * @param x - anchor x position.
+ * @param y - baseline y position.
+ * @param content - the text (any string; escaped).
+ * @param extra - further text attributes; "font-size" (default LABEL_SIZE), "text-anchor" and
+ *   "font-weight" also size and place the panel.
+ * @param padding - room around the text, px (≥ 0, default 2).
+ * @returns a `<rect class="label-panel">` followed by the `<text>` element.
+ * @example
+ * svgTextOnPanel(10, 20, "ENSO").startsWith('<rect class="label-panel"'); // => true
+ */
+export function svgTextOnPanel(
+  x: number,
+  y: number,
+  content: string,
+  extra: Readonly<Record<string, string | number | undefined>> = {},
+  padding = 2,
+): string {
+  const size = Number(extra["font-size"] ?? LABEL_SIZE);
+  const bold = Number(extra["font-weight"] ?? 400) >= 600;
+  const width = estimateTextWidth(content, size) * (bold ? 1.1 : 1) + 2 * padding;
+  const anchor = extra["text-anchor"] ?? "start";
+  const left = anchor === "middle" ? x - width / 2 : anchor === "end" ? x - width + padding : x - padding;
+  const panel = `<rect${attrs({ class: "label-panel", x: left, y: y - size * 0.8 - padding / 2, width, height: size * 1.05 + padding, fill: "#ffffff", "fill-opacity": 0.9 })}/>`;
+  return panel + svgText(x, y, content, extra);
+}
+
+/**
  * The opening `<svg>` tag of a chart: viewBox of the frame size, 100% wide, the chart font,
  * an accessible label and a white background.
  *
@@ -362,18 +397,15 @@ export function axisBottomBand(
  * The words "not enough data", centred in the plot area.
  *
  * @param frame - the chart frame.
- * @returns a `<text>` element.
+ * @returns a white panel and a `<text>` element.
  * @example
  * notEnoughData(frame).includes("not enough data"); // => true
  */
 export function notEnoughData(frame: Frame): string {
-  return svgText((frame.left + frame.right) / 2, (frame.top + frame.bottom) / 2 + 5, NOT_ENOUGH_DATA, {
+  return svgTextOnPanel((frame.left + frame.right) / 2, (frame.top + frame.bottom) / 2 + 5, NOT_ENOUGH_DATA, {
     "text-anchor": "middle",
     "font-size": 14,
     fill: palette.inkMuted,
-    stroke: "#ffffff",
-    "stroke-width": 4,
-    "paint-order": "stroke",
     class: "not-enough-data",
   });
 }

@@ -63,4 +63,12 @@ describe("phaseSpaceScatter", () => {
     expect(svg).toContain("&lt;script&gt;x&lt;/script&gt;");
     expect(chartText(document)).toContain("a&b");
   });
+
+  it("phaseSpaceScatter(input) writes 'This season' once, on a white panel, never as stroked (doubled) text", () => {
+    const svg = phaseSpaceScatter(input);
+    const document = checkChartSvg(svg);
+    expect(document.texts.filter((text) => text.includes("This season"))).toHaveLength(1);
+    expect(svg).not.toContain("paint-order");
+    expect(elementsWith(document, "rect", "class", "label-panel")).toHaveLength(1);
+  });
 });

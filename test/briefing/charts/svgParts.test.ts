@@ -8,6 +8,7 @@ import {
   legendRows,
   makeFrame,
   paddedExtent,
+  svgTextOnPanel,
 } from "../../../src/briefing/charts/svgParts.js";
 import { parseXml } from "./xmlCheck.js";
 
@@ -75,5 +76,19 @@ describe("svgParts", () => {
     expect(legendRows([entry], 600)).toBe(1);
     expect(legendRows([entry, entry, entry], 600)).toBe(2);
     expect(legendRows([entry, entry, entry], 200)).toBe(3);
+  });
+
+  it("svgTextOnPanel(100, 50, 'ENSO', { 'text-anchor': 'end', 'font-size': 10 }) puts a white panel under the text, no stroke", () => {
+    const document = parseXml(`<g>${svgTextOnPanel(100, 50, "ENSO", { "text-anchor": "end", "font-size": 10 })}</g>`);
+    const [panel, text] = document.elements.slice(1);
+    expect(panel?.name).toBe("rect");
+    expect(text?.name).toBe("text");
+    expect(text?.attributes.stroke).toBeUndefined();
+    expect(document.texts).toEqual(["ENSO"]);
+    // 4 characters × 0.5 em × 10 px = 20, plus 2 × 2 padding: the panel spans x 78 … 102.
+    expect(Number(panel?.attributes.width)).toBeCloseTo(24, 5);
+    expect(Number(panel?.attributes.x)).toBeCloseTo(78, 5);
+    expect(Number(panel?.attributes.y)).toBeLessThan(50 - 7);
+    expect(Number(panel?.attributes.y) + Number(panel?.attributes.height)).toBeGreaterThan(50);
   });
 });
