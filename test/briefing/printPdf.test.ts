@@ -64,8 +64,10 @@ describe("PdfPrinter.print(briefing html)", () => {
   });
 
   it("prints region, issue date, headline probability, cautions, citations and page x of y", async () => {
-    const { inputs, pages } = await printSample({});
+    const { inputs, pages, html } = await printSample({});
     const text = flatText(pages);
+    // Only the detail part and the appendix force a new page; other sections follow on.
+    expect(html.match(/<section class="page\b/g)).toHaveLength(2);
     const first = (pages[0] ?? "").replace(/\s+/g, " ");
     expect(first).toContain("Larkspur Hollow District (invented)");
     expect(first).toContain("Issued 10 March 2027");
