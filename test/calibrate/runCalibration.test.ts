@@ -3,7 +3,7 @@ import { runCalibration } from "../../src/calibrate/runCalibration.js";
 import { toCalibrationJson } from "../../src/calibrate/toCalibrationJson.js";
 import { buildOutlook } from "../../src/outlook/buildOutlook.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
-import { syntheticWorkspace } from "../helpers/syntheticWorkspace.js";
+import { syntheticWorkspace, withCutsForA } from "../helpers/syntheticWorkspace.js";
 
 describe("runCalibration(workspace)", () => {
   const workspace = syntheticWorkspace({ effect: 1.6, seed: 11 });
@@ -106,16 +106,7 @@ describe("buildOutlook(workspace, calibration, request)", () => {
 
   it("falls back as the hindcast does when this season's phase has no past year", () => {
     // Cuts at ±5 leave the outer phases of index A empty in a standard-normal record.
-    const base = syntheticWorkspace({ effect: 1.6, seed: 11 });
-    const wide = {
-      ...base,
-      settings: {
-        ...base.settings,
-        indices: base.settings.indices.map((index) =>
-          index.name === "A" ? { ...index, phases: { kind: "cuts" as const, cuts: [-5, 5], labels: ["low", "mid", "high"] } } : index,
-        ),
-      },
-    };
+    const wide = withCutsForA(syntheticWorkspace({ effect: 1.6, seed: 11 }), [-5, 5], ["low", "mid", "high"]);
     const wideCalibration = runCalibration(wide);
     const alone = buildOutlook(wide, wideCalibration, { values: { A: 10 }, issued: "2027-03-10", season: 2027 });
     expect(alone.fireYear.estimate).toBeCloseTo(wideCalibration.baseRate.estimate as number, 12);
@@ -148,16 +139,7 @@ describe("buildOutlook(workspace, calibration, request)", () => {
 describe("buildOutlook when the strongest index's phase has no past year", () => {
   it("names the index actually used and why", () => {
     // A fourth phase of A beyond 5 is empty in a standard-normal record, while A keeps its measured link.
-    const base = syntheticWorkspace({ effect: 1.6, seed: 11 });
-    const wide = {
-      ...base,
-      settings: {
-        ...base.settings,
-        indices: base.settings.indices.map((index) =>
-          index.name === "A" ? { ...index, phases: { kind: "cuts" as const, cuts: [-0.5, 0.5, 5], labels: ["low", "mid", "high", "extreme"] } } : index,
-        ),
-      },
-    };
+    const wide = withCutsForA(syntheticWorkspace({ effect: 1.6, seed: 11 }), [-0.5, 0.5, 5], ["low", "mid", "high", "extreme"]);
     const outlook = buildOutlook(wide, runCalibration(wide), { values: { A: 10, B: 0.1 }, issued: "2027-03-10", season: 2027 });
     expect(outlook.fireYear.basisIndices).toEqual(["B"]);
     expect(outlook.fireYear.basis).toMatch(/the most strongly linked index with past years in its current phase; no past year shared this season's phase of A\)$/);

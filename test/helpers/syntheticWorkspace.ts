@@ -73,3 +73,14 @@ export function syntheticWorkspace(options: SyntheticOptions = {}): Workspace {
     warnings: [],
   };
 }
+
+/** The same invented region with other fixed cuts (and labels) for index A. */
+export function withCutsForA(workspace: Workspace, cuts: readonly number[], labels: readonly string[]): Workspace {
+  return {
+    ...workspace,
+    settings: {
+      ...workspace.settings,
+      indices: workspace.settings.indices.map((index) => (index.name === "A" ? { ...index, phases: { kind: "cuts" as const, cuts, labels } } : index)),
+    },
+  };
+}
