@@ -1,5 +1,5 @@
 import betaQuantile from "@stdlib/stats-base-dists-beta-quantile";
-import { StatsInputError } from "./StatsInputError.js";
+import { assertConfidence, assertProportionCounts } from "./assertProportionArguments.js";
 import type { ProportionInterval } from "./proportionInterval.js";
 
 /**
@@ -28,18 +28,8 @@ import type { ProportionInterval } from "./proportionInterval.js";
  *   Science 16(2):101–133, §4.1.2, doi:10.1214/ss/1009213286.
  */
 export function jeffreysInterval(successes: number, trials: number, confidence = 0.95): ProportionInterval {
-  if (!Number.isInteger(trials) || trials < 0) {
-    throw new StatsInputError(`trials must be a non-negative integer (got ${trials})`);
-  }
-  if (!Number.isInteger(successes) || successes < 0) {
-    throw new StatsInputError(`successes must be a non-negative integer (got ${successes})`);
-  }
-  if (successes > trials) {
-    throw new StatsInputError(`successes must not exceed trials (got ${successes} of ${trials})`);
-  }
-  if (!(confidence > 0 && confidence < 1)) {
-    throw new StatsInputError(`confidence must be strictly between 0 and 1 (got ${confidence})`);
-  }
+  assertProportionCounts(successes, trials);
+  assertConfidence(confidence);
   if (trials === 0) {
     return { estimate: Number.NaN, lower: Number.NaN, upper: Number.NaN };
   }

@@ -1,5 +1,5 @@
 import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
-import { StatsInputError } from "./StatsInputError.js";
+import { assertConfidence, assertProportionCounts } from "./assertProportionArguments.js";
 import type { ProportionInterval } from "./proportionInterval.js";
 
 /**
@@ -29,7 +29,7 @@ import type { ProportionInterval } from "./proportionInterval.js";
  *   methods", Statistics in Medicine 17(8):857–872, method 3 and its illustrative table.
  */
 export function wilsonInterval(successes: number, trials: number, confidence = 0.95): ProportionInterval {
-  assertCounts(successes, trials);
+  assertProportionCounts(successes, trials);
   assertConfidence(confidence);
   if (trials === 0) {
     return { estimate: Number.NaN, lower: Number.NaN, upper: Number.NaN };
@@ -43,22 +43,4 @@ export function wilsonInterval(successes: number, trials: number, confidence = 0
   const lower = successes === 0 ? 0 : Math.max(0, centre - halfWidth);
   const upper = successes === trials ? 1 : Math.min(1, centre + halfWidth);
   return { estimate: successes / trials, lower, upper };
-}
-
-function assertCounts(successes: number, trials: number): void {
-  if (!Number.isInteger(trials) || trials < 0) {
-    throw new StatsInputError(`trials must be a non-negative integer (got ${trials})`);
-  }
-  if (!Number.isInteger(successes) || successes < 0) {
-    throw new StatsInputError(`successes must be a non-negative integer (got ${successes})`);
-  }
-  if (successes > trials) {
-    throw new StatsInputError(`successes must not exceed trials (got ${successes} of ${trials})`);
-  }
-}
-
-function assertConfidence(confidence: number): void {
-  if (!(confidence > 0 && confidence < 1)) {
-    throw new StatsInputError(`confidence must be strictly between 0 and 1 (got ${confidence})`);
-  }
 }
