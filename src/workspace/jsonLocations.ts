@@ -2,6 +2,8 @@
 export interface JsonLocations {
   /** Line (1-based) of the key of each member, or of the value for the root and array items. */
   readonly lineOf: (path: readonly (string | number)[]) => number | null;
+  /** The text of a number literal at `path` as written (e.g. "1e400"), or null when the value there is not a number. */
+  readonly literalOf: (path: readonly (string | number)[]) => string | null;
   /** Keys that appear twice in the same object, with the line of the second one. */
   readonly duplicateKeys: readonly { readonly path: readonly string[]; readonly key: string; readonly line: number }[];
 }
@@ -32,6 +34,8 @@ const pathKey = (path: readonly (string | number)[]): string => JSON.stringify(p
  */
 export function locateJson(text: string): JsonLocations {
   const lines = new Map<string, number>();
+  const numbers = new Map<string, string>();
+  const literalPattern = /true|false|null|-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][+-]?\d+)?/y;
   const duplicateKeys: { path: string[]; key: string; line: number }[] = [];
   let index = 0;
   let line = 1;
@@ -132,9 +136,12 @@ export function locateJson(text: string): JsonLocations {
       readString();
       return;
     }
-    const literal = /^(?:true|false|null|-?(?:0|[1-9]\d*)(?:\.\d+)?(?:[eE][+-]?\d+)?)/.exec(text.slice(index, index + 400));
+    literalPattern.lastIndex = index;
+    const literal = literalPattern.exec(text);
     if (literal === null || literal[0] === "") fail("expected a value");
-    index += (literal as RegExpExecArray)[0].length;
+    const written = (literal as RegExpExecArray)[0];
+    if (written !== "true" && written !== "false" && written !== "null") numbers.set(pathKey(path), written);
+    index += written.length;
   };
 
   readValue([]);
@@ -148,6 +155,7 @@ export function locateJson(text: string): JsonLocations {
       }
       return null;
     },
+    literalOf: (path) => numbers.get(pathKey(path)) ?? null,
     duplicateKeys,
   };
 }

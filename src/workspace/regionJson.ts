@@ -5,6 +5,7 @@ import { DEFAULT_FIRE_YEARS, DEFAULT_METHODS, DEFAULT_SEED, DEFAULT_TERCILE_LABE
 import { didYouMean } from "./didYouMean.js";
 import { InputError, ProblemList } from "./InputError.js";
 import { JsonSyntaxError, locateJson } from "./jsonLocations.js";
+import { echoText, MAX_MISSING_CODES, TEXT_LIMITS } from "./limits.js";
 import type { IndexSettings, PhaseRule, RegionSettings } from "./types.js";
 
 /** The data files named in region.json, as written there (relative to the region folder). */
@@ -17,7 +18,9 @@ export interface RegionFileNames {
 
 const INDEX_NAME = /^[A-Za-z][A-Za-z0-9_.-]*$/;
 
-const fileName = z.string().trim().min(1, { error: "must be a file name" });
+const fileName = z.string().trim().min(1, { error: "must be a file name" }).max(TEXT_LIMITS.file);
+/** Optional free text of at most `limit` characters. */
+const freeText = (limit: number) => z.string().max(limit);
 const year = z.number().int().min(-9999, { error: "must be a year from -9999 to 9999" }).max(9999, { error: "must be a year from -9999 to 9999" });
 const integer = (minimum: number) => z.number().int().min(minimum);
 
@@ -53,11 +56,13 @@ const fireYearsSchema = z.strictObject({
 const indexSchema = z
   .strictObject({
     file: fileName,
-    column: z.string().trim().min(1).optional(),
-    months: z.string().optional(),
-    cuts: z.array(z.number()).min(1).optional(),
+    column: z.string().trim().min(1).max(TEXT_LIMITS.column).optional(),
+    months: z.string().max(40).optional(),
+    cuts: z.array(z.number()).min(1).max(20).optional(),
     phases: z.literal("terciles").optional(),
-    labels: z.array(z.string().trim().min(1)).optional(),
+    labels: z.array(z.string().trim().min(1).max(TEXT_LIMITS.label)).max(21).optional(),
+    missing: z.array(z.number()).max(MAX_MISSING_CODES).optional(),
+    units: z.string().trim().min(1).max(TEXT_LIMITS.units).optional(),
   })
   .superRefine((index, ctx) => {
     if (index.months !== undefined && parseMonthWindow(index.months) === null) {
@@ -108,7 +113,11 @@ const methodsSchema = z
     analogs: integer(1).max(1000).optional(),
     jointMinYears: integer(1).max(10000).optional(),
     jointMaxQ: z.number().gt(0).max(1).optional(),
-    nearBoundaryMargin: z.number().min(0).optional(),
+    nearBoundarySd: z.number().min(0).max(10).optional(),
+    response: z.enum(["phase", "curve"]).optional(),
+    modernMeasure: z.enum(["area", "fires"]).optional(),
+    permutations: integer(199).max(100_000).optional(),
+    bootstrapResamples: integer(199).max(100_000).optional(),
     independenceKm: z.number().min(0).optional(),
     hindcastExclusion: integer(0).max(100).optional(),
     smallSampleYears: integer(1).max(10000).optional(),
@@ -123,8 +132,10 @@ const methodsSchema = z
 
 const regionSchema = z
   .strictObject({
-    name: z.string().trim().min(1, { error: "must be a non-empty name" }),
-    description: z.string().optional(),
+    name: z.string().trim().min(1, { error: "must be a non-empty name" }).max(TEXT_LIMITS.name),
+    description: freeText(TEXT_LIMITS.description).optional(),
+    preparedBy: freeText(TEXT_LIMITS.preparedBy).optional(),
+    contact: freeText(TEXT_LIMITS.contact).optional(),
     calibration: calibrationSchema.optional(),
     fireRecord: fireRecordSchema,
     fireYears: fireYearsSchema.optional(),
@@ -141,6 +152,12 @@ const regionSchema = z
         ctx.addIssue({
           code: "custom",
           message: "an index name starts with a letter and has only letters, digits, '_', '-' or '.'",
+          path: ["indices", name],
+        });
+      } else if (name.length > TEXT_LIMITS.indexName) {
+        ctx.addIssue({
+          code: "custom",
+          message: `an index name has at most ${TEXT_LIMITS.indexName} characters (this one has ${name.length})`,
           path: ["indices", name],
         });
       }
@@ -193,15 +210,47 @@ function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
 
 function describeValue(value: unknown): string {
   if (value === undefined) return "nothing";
+  if (typeof value === "number" && !Number.isFinite(value)) return "a number out of range";
   const text = JSON.stringify(value);
-  return text.length > 40 ? `${text.slice(0, 37)}...` : text;
+  return echoText(text.length > 40 ? `${text.slice(0, 37)}...` : text, 43);
+}
+
+/**
+ * `JSON.parse` keeps a key "__proto__" as an own property, but zod's record reader drops it and an
+ * ordinary object would take it as its prototype. A "__proto__" key in `indices` or
+ * `outlook.values` is therefore refused here, with its line; in the fixed-key objects the strict
+ * schema already reports it as an unknown key.
+ */
+function checkProtoKeys(raw: Record<string, unknown>, locations: ReturnType<typeof locateJson>, problems: ProblemList): void {
+  const indices = Object.hasOwn(raw, "indices") ? raw["indices"] : undefined;
+  if (indices !== null && typeof indices === "object" && !Array.isArray(indices) && Object.hasOwn(indices, "__proto__")) {
+    problems.add(
+      locations.lineOf(["indices", "__proto__"]),
+      `"indices.__proto__": "__proto__" cannot be an index name (an index name starts with a letter and has only letters, digits, '_', '-' or '.')`,
+    );
+  }
+  const outlook = Object.hasOwn(raw, "outlook") ? raw["outlook"] : undefined;
+  if (outlook !== null && typeof outlook === "object" && !Array.isArray(outlook) && Object.hasOwn(outlook, "values")) {
+    const values = (outlook as Record<string, unknown>)["values"];
+    if (values !== null && typeof values === "object" && !Array.isArray(values) && Object.hasOwn(values, "__proto__")) {
+      problems.add(locations.lineOf(["outlook", "values", "__proto__"]), `"outlook.values.__proto__" "__proto__" is not an index of this region`);
+    }
+  }
 }
 
 const dotted = (path: readonly PropertyKey[]): string =>
   path.map((key, i) => (typeof key === "number" ? `[${key}]` : `${i === 0 ? "" : "."}${String(key)}`)).join("");
 
+/** Keys that were renamed, with the hint shown when the old key is used. */
+const RENAMED_KEYS: ReadonlyMap<string, { readonly key: string; readonly hint: string }> = new Map([
+  ["methods.nearBoundaryMargin", { key: "nearBoundarySd", hint: "it is now a share of the index's standard deviation, e.g. 0.1" }],
+]);
+
 /** A plain sentence for one zod issue. */
 function issueMessage(issue: z.core.$ZodIssue, found: unknown): string {
+  if (typeof found === "number" && !Number.isFinite(found)) {
+    return "is out of range: not a finite number (JSON numbers beyond about 1.8e308 cannot be used)";
+  }
   switch (issue.code) {
     case "invalid_type":
       return found === undefined ? "is required" : `must be ${issue.expected === "int" ? "an integer" : `a ${issue.expected}`}`;
@@ -210,6 +259,8 @@ function issueMessage(issue: z.core.$ZodIssue, found: unknown): string {
       if (issue.origin === "string") return "must not be empty";
       return `must be ${issue.inclusive ? "at least" : "greater than"} ${String(issue.minimum)}`;
     case "too_big":
+      if (issue.origin === "string") return `is too long: at most ${String(issue.maximum)} characters`;
+      if (issue.origin === "array") return `has too many items: at most ${String(issue.maximum)}`;
       return `must be ${issue.inclusive ? "at most" : "less than"} ${String(issue.maximum)}`;
     case "invalid_value":
       return `must be one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}`;
@@ -262,15 +313,20 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
     problems.add(1, `region.json must hold one JSON object (found ${describeValue(raw)})`);
     throw new InputError(problems.toArray());
   }
+  checkProtoKeys(raw as Record<string, unknown>, locations, problems);
   const parsed = regionSchema.safeParse(raw);
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       if (issue.code === "unrecognized_keys") {
         const known = knownKeysAt(issue.path);
         for (const key of issue.keys) {
-          const suggestion = didYouMean(key, known);
+          const renamed = RENAMED_KEYS.get(dotted([...issue.path, key]));
+          const suggestion = renamed?.key ?? didYouMean(key, known);
           const where = issue.path.length === 0 ? "" : ` in "${dotted(issue.path)}"`;
-          const hint = suggestion === null ? ` (allowed: ${known.join(", ")})` : ` (did you mean "${suggestion}"?)`;
+          const hint =
+            suggestion === null
+              ? ` (allowed: ${known.join(", ")})`
+              : ` (did you mean "${suggestion}"?${renamed === undefined ? "" : ` ${renamed.hint}`})`;
           problems.add(locations.lineOf([...issue.path.map(String), key]), `unknown key "${key}"${where}${hint}`);
         }
         continue;
@@ -278,8 +334,11 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
       const found = valueAt(raw, issue.path);
       const subject = issue.path.length === 0 ? "region.json" : `"${dotted(issue.path)}"`;
       const message = issueMessage(issue, found);
-      const showFound = found !== undefined && (issue.code !== "custom" || message.startsWith("must"));
-      const foundText = showFound ? ` (found ${describeValue(found)})` : "";
+      const literal = locations.literalOf(issue.path.map((key) => (typeof key === "number" ? key : String(key))));
+      let foundText = "";
+      if (typeof found === "number" && !Number.isFinite(found)) foundText = ` (found ${echoText(literal ?? String(found))})`;
+      else if (typeof found === "string" && issue.code === "too_big") foundText = ` (found ${found.length} characters)`;
+      else if (found !== undefined && (issue.code !== "custom" || message.startsWith("must"))) foundText = ` (found ${describeValue(found)})`;
       problems.add(
         locations.lineOf(issue.path.map((key) => (typeof key === "number" ? key : String(key)))),
         `${subject} ${message}${foundText}`,
@@ -290,6 +349,13 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
   return toSettings(parsed.data);
 }
 
+/** A copy of a record with no prototype, so that a lookup by a user's key never finds an inherited property. */
+function nullPrototypeCopy(record: Readonly<Record<string, number>>): Record<string, number> {
+  const copy = Object.create(null) as Record<string, number>;
+  for (const [key, value] of Object.entries(record)) copy[key] = value;
+  return copy;
+}
+
 function toSettings(region: RegionJson): { settings: RegionSettings; files: RegionFileNames } {
   const indices: IndexSettings[] = Object.entries(region.indices).map(([name, index]) => {
     const phases: PhaseRule =
@@ -297,7 +363,15 @@ function toSettings(region: RegionJson): { settings: RegionSettings; files: Regi
         ? { kind: "cuts", cuts: index.cuts, labels: index.labels ?? [] }
         : { kind: "terciles", labels: index.labels ?? [...DEFAULT_TERCILE_LABELS] };
     const window = index.months === undefined ? null : parseMonthWindow(index.months);
-    return { name, file: index.file, column: index.column ?? name, phases, months: window === null ? null : window.text };
+    return {
+      name,
+      file: index.file,
+      column: index.column ?? name,
+      phases,
+      months: window === null ? null : window.text,
+      missing: [...(index.missing ?? [])],
+      units: index.units ?? null,
+    };
   });
   const methods = { ...DEFAULT_METHODS };
   for (const [key, value] of Object.entries(region.methods ?? {})) {
@@ -306,6 +380,8 @@ function toSettings(region: RegionJson): { settings: RegionSettings; files: Regi
   const settings: RegionSettings = {
     name: region.name,
     description: region.description ?? null,
+    preparedBy: region.preparedBy ?? null,
+    contact: region.contact ?? null,
     calibration: region.calibration ?? null,
     fireYears: {
       top: region.fireYears?.top ?? DEFAULT_FIRE_YEARS.top,
@@ -315,7 +391,7 @@ function toSettings(region: RegionJson): { settings: RegionSettings; files: Regi
     indices,
     outlook: {
       season: region.outlook?.season ?? null,
-      values: { ...(region.outlook?.values ?? {}) },
+      values: nullPrototypeCopy(region.outlook?.values ?? {}),
       issued: region.outlook?.issued ?? null,
     },
     seed: region.seed ?? DEFAULT_SEED,

@@ -1,3 +1,5 @@
+import type { MonthlyValue } from "../climate/seasonalValues.js";
+
 /**
  * Typed, read-only records produced by the region-folder reader (`loadWorkspace`).
  * After loading, every later stage trusts these types; only the reader validates.
@@ -25,8 +27,24 @@ export interface MethodSettings {
   readonly jointMinYears: number;
   /** An index joins the joint phase only when its chi-square q-value (Benjamini–Hochberg across indices) is at most this (default 0.05). */
   readonly jointMaxQ: number;
-  /** Margin (index units) within which a value is reported as near a phase boundary (default 0.1). */
+  /**
+   * Margin within which a value is reported as near a phase boundary, as a share of the index's
+   * standard deviation over the calibration years (default 0.1, so 0.1 SD; 0 to 10).
+   */
+  readonly nearBoundarySd: number;
+  /**
+   * @deprecated Not a region.json key any more (`nearBoundarySd` replaced it); kept in the type only
+   * until the outlook and briefing read `nearBoundarySd`. Always 0.1 (index units).
+   */
   readonly nearBoundaryMargin: number;
+  /** How an index is related to the fire-year odds: by phase (default) or by a logistic response curve. */
+  readonly response: "phase" | "curve";
+  /** Measure of the modern (agency) fire record used for its fire years: burned area (default) or number of fires. */
+  readonly modernMeasure: "area" | "fires";
+  /** Random permutations of a permutation test (default 999; 199 to 100,000). */
+  readonly permutations: number;
+  /** Bootstrap resamples of a bootstrap interval (default 999; 199 to 100,000). */
+  readonly bootstrapResamples: number;
   /** Sites closer than this many km are reported as possibly not independent (default 40). */
   readonly independenceKm: number;
   /** Hindcast leaves out the target year and this many years either side (default 2). */
@@ -56,6 +74,13 @@ export interface IndexSettings {
   readonly phases: PhaseRule;
   /** Month window such as "Dec-Mar" for monthly files; null for a yearly file. */
   readonly months: string | null;
+  /**
+   * Declared missing-value codes of this index (e.g. [-99.99]): a cell holding exactly one of them
+   * is read as empty. The reader always fills this (default []); optional only for older literals.
+   */
+  readonly missing?: readonly number[];
+  /** Scale of the index as the user names it (e.g. "standardized", "°C anomaly"); null when not given. */
+  readonly units?: string | null;
 }
 
 export interface RegionSettings {
@@ -71,6 +96,10 @@ export interface RegionSettings {
   };
   readonly seed: number;
   readonly methods: MethodSettings;
+  /** Who prepared the region folder (free text); null when not given. The reader always fills this. */
+  readonly preparedBy?: string | null;
+  /** How to reach them (free text); null when not given. The reader always fills this. */
+  readonly contact?: string | null;
 }
 
 export interface Site {
@@ -105,6 +134,11 @@ export interface IndexSeries {
   readonly name: string;
   readonly years: readonly number[];
   readonly values: readonly (number | null)[];
+  /**
+   * The raw months of a monthly file (ascending year then month; a missing or declared-missing
+   * cell is `value: null`), so that this season's value can be computed; absent for a yearly file.
+   */
+  readonly monthly?: readonly MonthlyValue[];
 }
 
 export interface InputFile {

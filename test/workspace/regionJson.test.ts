@@ -34,7 +34,7 @@ describe("parseRegionJson(text, file)", () => {
     expect(settings.description).toBeNull();
     expect(settings.outlook).toEqual({ season: null, values: {}, issued: null });
     expect(settings.indices).toEqual([
-      { name: "ENSO", file: "i.csv", column: "ENSO", months: null, phases: { kind: "cuts", cuts: [-0.5, 0.5], labels: ["cold", "neutral", "warm"] } },
+      { name: "ENSO", file: "i.csv", column: "ENSO", months: null, phases: { kind: "cuts", cuts: [-0.5, 0.5], labels: ["cold", "neutral", "warm"] }, missing: [], units: null },
     ]);
     expect(files).toEqual({ fireRecord: { kind: "activity", activity: "a.csv" }, modern: null });
   });
@@ -57,7 +57,7 @@ describe("parseRegionJson(text, file)", () => {
       "r",
     );
     expect(files).toEqual({ fireRecord: { kind: "sites", sites: "s.csv", events: "e.csv" }, modern: "m.csv" });
-    expect(settings.indices[0]).toEqual({ name: "NAO", file: "n.csv", column: "nao_djfm", months: "Dec-Mar", phases: { kind: "terciles", labels: ["low", "middle", "high"] } });
+    expect(settings.indices[0]).toEqual({ name: "NAO", file: "n.csv", column: "nao_djfm", months: "Dec-Mar", phases: { kind: "terciles", labels: ["low", "middle", "high"] }, missing: [], units: null });
     expect(settings.outlook).toEqual({ season: 2027, values: { NAO: 0.4 }, issued: "2027-03-10" });
     expect(settings.calibration).toEqual({ first: 1700, last: 1990 });
     expect(settings.seed).toBe(12345);
@@ -78,7 +78,7 @@ describe("parseRegionJson(text, file)", () => {
 
   it("lists the allowed keys when no known key is close", () => {
     expect(messages({ ...minimal, colour: "red" })).toEqual([
-      'unknown key "colour" (allowed: name, description, calibration, fireRecord, fireYears, indices, outlook, seed, methods)',
+      'unknown key "colour" (allowed: name, description, preparedBy, contact, calibration, fireRecord, fireYears, indices, outlook, seed, methods)',
     ]);
   });
 
