@@ -1,5 +1,7 @@
 /** Cross-validated verification of the outlook method. */
 
+import type { CorpReliability } from "../stats/corpReliability.js";
+
 export interface ReliabilityBin {
   readonly lower: number;
   readonly upper: number;
@@ -21,6 +23,20 @@ export interface HindcastYear {
   readonly basis: "joint" | "single" | "climatology";
 }
 
+/** Moving-block bootstrap intervals of the hindcast scores (C8). An interval is null when it cannot be computed. */
+export interface SkillIntervals {
+  readonly brierSkillScore: readonly [number, number] | null;
+  readonly rpss: readonly [number, number] | null;
+  readonly rocArea: readonly [number, number] | null;
+  /** How the intervals were made, in words. */
+  readonly method: string;
+  readonly resamples: number;
+  readonly blockYears: number;
+  /** Coverage, e.g. 0.95. */
+  readonly level: number;
+  readonly reason?: string;
+}
+
 export interface Skill {
   readonly years: number;
   readonly exclusion: number;
@@ -40,4 +56,19 @@ export interface Skill {
   readonly rule: string;
   readonly forecasts: readonly HindcastYear[];
   readonly reason?: string;
+  /** Permutation p-value of the Brier skill score, (b + 1)/(m + 1); null (with skillPValueReason) when not computed. */
+  readonly skillPValue?: number | null;
+  readonly skillPValueReason?: string;
+  /** Number of block shuffles m behind skillPValue. */
+  readonly permutations?: number;
+  /** Block length (years) of the shuffles behind skillPValue. */
+  readonly permutationBlockYears?: number;
+  /** Moving-block bootstrap intervals of BSS, RPSS and ROC area. */
+  readonly intervals?: SkillIntervals | null;
+  /** CORP reliability diagram of the hindcast forecasts; null (with corpReason) when not computable. */
+  readonly corp?: CorpReliability | null;
+  readonly corpReason?: string;
+  /** The curve rule's hindcast in the same folds (issue 11); null (with curveRuleReason) when not run. */
+  readonly curveRule?: Skill | null;
+  readonly curveRuleReason?: string;
 }
