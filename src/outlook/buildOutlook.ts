@@ -18,9 +18,23 @@ export interface OutlookRequest {
   readonly issued: string;
   readonly season: number;
   /** Where each value came from (shown beside it); absent entries are reported as "given". */
-  readonly sources?: Readonly<Record<string, "region.json" | "--values">>;
+  readonly sources?: Readonly<Record<string, string>>;
+  /**
+   * How each value was obtained when it was computed from an index file (or given): its source in
+   * words, the season window, the months used and whether the window was incomplete (provisional).
+   * Absent entries are values given as plain numbers.
+   */
+  readonly details?: Readonly<Record<string, OutlookValueDetail>>;
   /** Notes about the request itself (e.g. values written for another season), printed as warnings. */
   readonly notes?: readonly { readonly code: string; readonly message: string }[];
+}
+
+/** How one current value was obtained (C6 contract; filled by the CLI from the index file). */
+export interface OutlookValueDetail {
+  readonly source: string;
+  readonly window: string | null;
+  readonly months: readonly string[];
+  readonly provisional: boolean;
 }
 
 /**
