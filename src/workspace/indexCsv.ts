@@ -77,7 +77,8 @@ export function readIndexCsv(
     if (window === null) throw new RangeError(`index ${index.name}: invalid month window ${String(index.months)}`);
     const monthlyValues: MonthlyValue[] = rows.map((r) => ({ year: r.year, month: r.month, value: r.values[position] ?? null }));
     const seasonal = seasonalValues(monthlyValues, window);
-    series.push({ name: index.name, years: seasonal.years, values: seasonal.values });
+    const sortedMonths = [...monthlyValues].sort((x, y) => x.year - y.year || x.month - y.month);
+    series.push({ name: index.name, years: seasonal.years, values: seasonal.values, monthly: sortedMonths });
     if (seasonal.incomplete.length > 0) {
       const count = seasonal.incomplete.length;
       const shown = seasonal.incomplete
