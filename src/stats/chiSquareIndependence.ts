@@ -139,7 +139,7 @@ function indicesWhere(values: readonly number[], predicate: (value: number) => b
  * @stdlib/math-base-special-gammainc (upper tail computed directly, so far-tail p-values keep their
  * relative precision instead of rounding to 0 as 1 − CDF would).
  */
-function chiSquareUpperTail(x: number, df: number): number {
+export function chiSquareUpperTail(x: number, df: number): number {
   if (!(x > 0)) return 1;
   return Math.min(1, Math.max(0, gammainc(x / 2, df / 2, true, true)));
 }
