@@ -20,11 +20,21 @@ export function calibrationPeriod(
     first = settings.calibration.first;
     last = settings.calibration.last;
   } else {
-    const indexYears = indices.flatMap((series) => series.years.filter((_, i) => series.values[i] !== null));
+    // Loops, not Math.min(...array): a spread of a long array overflows the call stack.
+    let indexFirst = Infinity;
+    let indexLast = -Infinity;
+    for (const series of indices) {
+      for (let i = 0; i < series.years.length; i++) {
+        if (series.values[i] === null || series.values[i] === undefined) continue;
+        const year = series.years[i] as number;
+        if (year < indexFirst) indexFirst = year;
+        if (year > indexLast) indexLast = year;
+      }
+    }
     const fireFirst = usable[0] ?? Infinity;
     const fireLast = usable[usable.length - 1] ?? -Infinity;
-    first = Math.max(fireFirst, Math.min(...indexYears));
-    last = Math.min(fireLast, Math.max(...indexYears));
+    first = Math.max(fireFirst, indexFirst);
+    last = Math.min(fireLast, indexLast);
   }
   const years = usable.filter((year) => year >= first && year <= last);
   return { first, last, years };

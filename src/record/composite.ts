@@ -42,8 +42,13 @@ export function compositeFireRecord(input: FireRecordInput, minSitesRecording: n
       }
     }
   } else if (input.sites.length > 0) {
-    const firstYear = Math.min(...input.sites.map((site) => site.firstYear));
-    const lastYear = Math.max(...input.sites.map((site) => site.lastYear));
+    // Loops, not Math.min(...array): a spread of 130,000 sites overflows the call stack.
+    let firstYear = Infinity;
+    let lastYear = -Infinity;
+    for (const site of input.sites) {
+      if (site.firstYear < firstYear) firstYear = site.firstYear;
+      if (site.lastYear > lastYear) lastYear = site.lastYear;
+    }
     const span = lastYear - firstYear + 1;
     const recording = new Array<number>(span).fill(0);
     const burned = new Array<number>(span).fill(0);
