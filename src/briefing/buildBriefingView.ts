@@ -36,6 +36,12 @@ export interface BriefingInputs {
   readonly safetyMarkdown: string;
   /** Paper size, printed in the settings table. */
   readonly paper: "a4" | "letter";
+  /** How the region's kept outlooks turned out (`firephase review`); null/absent when none is kept. */
+  readonly review?: import("../review/types.js").Review | null;
+  /** What changed since the most recent kept outlook of this or the previous season; null/absent when there is none. */
+  readonly sinceLast?: import("../review/types.js").SinceLastBriefing | null;
+  /** The moment the briefing was made, ISO 8601 (e.g. "2027-03-10T08:15:00.000Z"), from the CLI's clock. */
+  readonly madeAt?: string;
 }
 
 /** A statistic that is either shown or replaced by "not enough data" with its reason. */
