@@ -1,3 +1,4 @@
+import { wilcoxonRankSum } from "simple-statistics";
 import { describe, expect, it } from "vitest";
 import { createRandom } from "../../src/stats/createRandom.js";
 import { rocArea } from "../../src/stats/rocArea.js";
@@ -6,8 +7,9 @@ import { StatsInputError } from "../../src/stats/StatsInputError.js";
 
 /**
  * Hanley J.A., McNeil B.J. (1982) "The meaning and use of the area under a receiver operating characteristic
- * (ROC) curve", Radiology 143(1):29–36, Table I (REFERENCES.md §6): CT ratings 1 (definitely normal) … 5
- * (definitely abnormal) of 58 normal and 51 abnormal images. Data and area 0.893: V-secondary.
+ * (ROC) curve", Radiology 143(1):29–36, Table I: CT ratings 1 (definitely normal) … 5 (definitely abnormal) of
+ * 58 normal and 51 abnormal images, published area 0.893 (data and area as quoted by secondary sources; the
+ * table itself was not seen).
  */
 const HANLEY_MCNEIL = Object.freeze(
   (() => {
@@ -49,7 +51,7 @@ function pairCountArea(scores: readonly number[], outcomes: readonly (0 | 1)[]):
 describe("rocArea(scores, outcomes)", () => {
   it("Hanley & McNeil (1982) Table I ratings → area 0.893, standard error 0.032", () => {
     const { area, standardError } = rocArea(HANLEY_MCNEIL.ratings, HANLEY_MCNEIL.abnormal);
-    // Published area 0.893 (REFERENCES.md §6, V-secondary); C: 0.893171.
+    // Published area 0.893 (Hanley & McNeil 1982, Table I data); recomputed: 0.893171.
     expect(area).toBeCloseTo(0.893, 3);
     expect(area).toBeCloseTo(0.893171, 6);
     // Published SE 0.032 is from memory (M); recomputed with their formula (C): 0.032487.
@@ -75,6 +77,28 @@ describe("rocArea(scores, outcomes)", () => {
         trapezoid += ((current.falseAlarmRate - previous.falseAlarmRate) * (current.hitRate + previous.hitRate)) / 2;
       }
       expect(area).toBeCloseTo(trapezoid, 12);
+    }
+  });
+
+  it("rocArea equals the Mann–Whitney U from simple-statistics' rank sum: A = (R₁ − n₁(n₁ + 1)/2)/(n₁n₀)", () => {
+    // Mason S.J., Graham N.E. (2002) "Areas beneath the relative operating characteristics (ROC) and relative
+    // operating levels (ROL) curves", Q. J. R. Meteorol. Soc. 128:2145–2166: the ROC area is U/(n₁n₀).
+    // simple-statistics' wilcoxonRankSum gives tied values their average rank (mid-ranks).
+    const check = (scores: readonly number[], outcomes: readonly (0 | 1)[]): void => {
+      const events = scores.filter((_, index) => outcomes[index] === 1);
+      const nonEvents = scores.filter((_, index) => outcomes[index] === 0);
+      const rankSum = wilcoxonRankSum([...events], [...nonEvents]);
+      const u = rankSum - (events.length * (events.length + 1)) / 2;
+      expect(rocArea(scores, outcomes).area).toBeCloseTo(u / (events.length * nonEvents.length), 12);
+    };
+    check(HANLEY_MCNEIL.ratings, HANLEY_MCNEIL.abnormal);
+    const random = createRandom(23);
+    for (let trial = 0; trial < 60; trial += 1) {
+      const size = 2 + random.nextInt(120);
+      const scores = Array.from({ length: size }, () => random.nextInt(6) / 5);
+      const outcomes = Array.from({ length: size }, () => (random.nextInt(4) === 0 ? 1 : 0) as 0 | 1);
+      if (!outcomes.includes(1) || !outcomes.includes(0)) continue;
+      check(scores, outcomes);
     }
   });
 
