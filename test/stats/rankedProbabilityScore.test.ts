@@ -8,9 +8,36 @@ import { StatsInputError } from "../../src/stats/StatsInputError.js";
 const CLIMATOLOGY = Object.freeze([1 / 3, 1 / 3, 1 / 3]);
 
 describe("rankedProbabilityScore(probabilities, observedCategory, options?)", () => {
-  // REFERENCES.md §7, "Derived tercile checks (C, unnormalised RPS)": recomputed values (level C); no
-  // published numeric RPS example was found. Definition: Epstein E.S. (1969) J. Appl. Meteor. 8:985–987 and
-  // Murphy A.H. (1971) J. Appl. Meteor. 10:155–156 (the normalisation convention of the original is M).
+  it("rankedProbabilityScore([0.2, 0.5, 0.3], 0) = 0.8² + 0.3² = 0.73, normalized 0.365 (Wilks's example)", () => {
+    // The three-category forecast (0.2, 0.5, 0.3) with the first category observed: the example that the R
+    // package verification's rps() help page (Pocernich M.) labels "Example from Wilks", citing Wilks D.S.
+    // (2005/2006) Statistical Methods in the Atmospheric Sciences, 2nd ed., Academic Press, chapter 7 (ranked
+    // probability score section; page not seen). rps() divides by K − 1 and so gives 0.365. Both values are
+    // recomputed here from the definition: cumulative forecast 0.2, 0.7, 1 against cumulative observation 1, 1, 1.
+    expect(rankedProbabilityScore([0.2, 0.5, 0.3], 0)).toBeCloseTo(0.73, 14);
+    expect(rankedProbabilityScore([0.2, 0.5, 0.3], 0, { normalized: true })).toBeCloseTo(0.365, 14);
+  });
+
+  it("agrees with an independent jstat cumsum computation Σ (cumsum p − cumsum o)² on random forecasts", () => {
+    const random = createRandom(1969);
+    for (let trial = 0; trial < 200; trial += 1) {
+      const categoryCount = 2 + random.nextInt(7);
+      const weights = Array.from({ length: categoryCount }, () => random.nextFloat() + 1e-3);
+      const total = jStat.sum(weights);
+      const probabilities = weights.map((weight) => weight / total);
+      const observed = random.nextInt(categoryCount);
+      const indicator = probabilities.map((_, category) => (category === observed ? 1 : 0));
+      const forecastCumulative = jStat.cumsum(probabilities);
+      const observedCumulative = jStat.cumsum(indicator);
+      const expected = jStat.sum(forecastCumulative.map((value, category) => (value - (observedCumulative[category] as number)) ** 2));
+      expect(rankedProbabilityScore(probabilities, observed)).toBeCloseTo(expected, 12);
+    }
+  });
+
+  // Tercile checks recomputed by hand (derived, not published numbers). Definition: Epstein E.S. (1969) "A
+  // scoring system for probability forecasts of ranked categories", J. Appl. Meteor. 8:985–987, and Murphy A.H.
+  // (1971) "A note on the ranked probability score", J. Appl. Meteor. 10:155–156 (the normalisation convention
+  // of the original is from memory).
   it.each([
     { label: "lower", category: 0, unnormalized: 5 / 9, normalized: 0.2778, shown: "5/9" },
     { label: "middle", category: 1, unnormalized: 2 / 9, normalized: 0.1111, shown: "2/9" },
