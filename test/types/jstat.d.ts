@@ -38,6 +38,7 @@ declare module "jstat" {
     erf(x: number): number;
     erfc(x: number): number;
     sum(values: readonly number[]): number;
+    cumsum(values: readonly number[]): number[];
     mean(values: readonly number[]): number;
     median(values: readonly number[]): number;
     variance(values: readonly number[], sample?: boolean): number;
