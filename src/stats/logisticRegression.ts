@@ -66,9 +66,11 @@ const RANK_TOLERANCE = 1e-9;
  * has every event at x ≥ c and every non-event at x ≤ c (or the reverse), which includes all outcomes equal;
  * with several predictors it is recognised when Newton–Raphson does not converge while fitted probabilities
  * collapse to 0 or 1. When separation is found, or maximum likelihood does not converge, or `firth` is set,
- * the model is refitted by Firth's penalized likelihood ℓ(β) + ½·ln|XᵀWX| (the Jeffreys-prior penalty),
- * solved by the modified score Σ (yᵢ − πᵢ + hᵢ(½ − πᵢ))xᵢ = 0 with hᵢ the diagonal of the weighted hat matrix;
- * its estimates are finite under separation (also when all outcomes are equal). The Firth likelihood-ratio
+ * the model is refitted by Firth's penalized likelihood ℓ(β) + ½·ln|XᵀWX| (the Jeffreys-prior penalty), whose
+ * gradient is the modified score Σ (yᵢ − πᵢ + hᵢ(½ − πᵢ))xᵢ with hᵢ the diagonal of the weighted hat matrix. It is
+ * maximized by Newton's method with the exact Hessian of the penalized log-likelihood (Fisher scoring with XᵀWX
+ * where that Hessian is not negative definite), with step halving and the same two-part stopping rule. Its
+ * estimates are finite under separation (also when all outcomes are equal). The Firth likelihood-ratio
  * test is the penalized one of Heinze & Schemper: the null fit maximizes the same penalized likelihood over the
  * intercept with the slopes fixed at 0.
  *
@@ -314,8 +316,16 @@ function newtonFit(
   while (iterations < maxIterations && !converged) {
     iterations += 1;
     const score = penalized ? firthScore(design, y, state) : plainScore(design, y, state.fitted);
-    const information = freeIndices.map((row) => freeIndices.map((column) => state.information[row]?.[column] ?? 0));
-    const step = solve(information, freeIndices.map((index) => score[index] ?? 0));
+    const freeScore = freeIndices.map((index) => score[index] ?? 0);
+    const block = (matrix: number[][]) => freeIndices.map((row) => freeIndices.map((column) => matrix[row]?.[column] ?? 0));
+    // Maximum likelihood: Newton–Raphson, whose Hessian for the logit link is −XᵀWX. Firth: Newton on the penalized
+    // log-likelihood with its exact Hessian where that is negative definite, else Fisher scoring with XᵀWX.
+    let step: number[] | null = null;
+    if (penalized) {
+      const curvature = penalizedNegativeHessian(design, state);
+      if (curvature !== null) step = solve(block(curvature), freeScore);
+    }
+    step ??= solve(block(state.information), freeScore);
     if (step === null || step.some((value) => !Number.isFinite(value))) break;
     let scale = 1;
     if (penalized) {
@@ -411,6 +421,57 @@ function firthScore(design: number[][], y: number[], state: FitState): number[] 
     for (let r = 0; r < coefficientCount; r += 1) score[r] = (score[r] ?? 0) + residual * (row[r] ?? 0);
   });
   return score;
+}
+
+/**
+ * −∇²[ℓ(β) + ½ ln|I(β)|] with I = XᵀWX: I − ½[tr(I⁻¹I_rs) − tr(I⁻¹I_s I⁻¹I_r)], where I_r = Σ wᵢ(1 − 2πᵢ)x_ir xᵢxᵢᵀ and
+ * I_rs = Σ wᵢ(1 − 6πᵢ + 6πᵢ²)x_ir x_is xᵢxᵢᵀ are the derivatives of I. Null when I is singular.
+ */
+function penalizedNegativeHessian(design: number[][], state: FitState): number[][] | null {
+  const size = design[0]?.length ?? 0;
+  const inverse = invert(state.information);
+  if (inverse === null) return null;
+  const firstDerivatives = Array.from({ length: size }, () =>
+    Array.from({ length: size }, () => Array.from({ length: size }, () => 0)),
+  );
+  const traceSecond = Array.from({ length: size }, () => Array.from({ length: size }, () => 0));
+  design.forEach((row, caseIndex) => {
+    const probability = state.fitted[caseIndex] ?? 0;
+    const weight = state.weights[caseIndex] ?? 0;
+    const first = weight * (1 - 2 * probability);
+    const second = weight * (1 - 6 * probability + 6 * probability * probability);
+    const leverageLike = quadraticForm(inverse, row);
+    for (let r = 0; r < size; r += 1) {
+      const derivative = firstDerivatives[r] as number[][];
+      const xr = row[r] ?? 0;
+      for (let a = 0; a < size; a += 1) {
+        const derivativeRow = derivative[a] as number[];
+        for (let b = 0; b < size; b += 1) {
+          derivativeRow[b] = (derivativeRow[b] ?? 0) + first * xr * (row[a] ?? 0) * (row[b] ?? 0);
+        }
+      }
+      const traceRow = traceSecond[r] as number[];
+      for (let c = 0; c < size; c += 1) traceRow[c] = (traceRow[c] ?? 0) + second * xr * (row[c] ?? 0) * leverageLike;
+    }
+  });
+  const products = firstDerivatives.map((derivative) => multiply(inverse, derivative));
+  return state.information.map((informationRow, r) =>
+    informationRow.map((value, c) => {
+      let traceOfProducts = 0;
+      const left = products[c] as number[][];
+      const right = products[r] as number[][];
+      for (let a = 0; a < size; a += 1) {
+        for (let b = 0; b < size; b += 1) traceOfProducts += (left[a]?.[b] ?? 0) * (right[b]?.[a] ?? 0);
+      }
+      return value - 0.5 * ((traceSecond[r]?.[c] ?? 0) - traceOfProducts);
+    }),
+  );
+}
+
+function multiply(left: readonly (readonly number[])[], right: readonly (readonly number[])[]): number[][] {
+  return left.map((row) =>
+    (right[0] ?? []).map((_, c) => row.reduce((sum, value, k) => sum + value * (right[k]?.[c] ?? 0), 0)),
+  );
 }
 
 function expit(linear: number): number {
