@@ -1,14 +1,54 @@
 import jStat from "jstat";
 import { describe, expect, it } from "vitest";
 import { createRandom, type RandomSource } from "../../src/stats/createRandom.js";
-import { sampleWithoutReplacement } from "../../src/stats/sampleWithoutReplacement.js";
 import { StatsInputError } from "../../src/stats/StatsInputError.js";
 import { superposedEpochAnalysis } from "../../src/stats/superposedEpochAnalysis.js";
 
-// No published numeric worked example of SEA significance was found: REFERENCES.md §8 marks the procedures
-// of Haurwitz & Brier (1981), Prager & Hoenig (1989) and Adams, Mann & Ammann (2003) as M (from memory).
-// The checks below therefore use series whose composite is known by hand, an exact enumeration of the
-// randomization distribution, and an independent brute-force resampling (jstat for means and quantiles).
+// No published numeric worked example of SEA significance was found. The procedures follow Haurwitz M.W.,
+// Brier G.W. (1981) Monthly Weather Review 109:2074–2079, Prager M.H., Hoenig J.M. (1989) Transactions of the
+// American Fisheries Society 118:608–618 and Adams J.B., Mann M.E., Ammann C.M. (2003) Nature 426:274–278
+// (their procedural details are from memory). The checks below therefore use series whose composite is known by
+// hand, exact enumerations of the randomization distribution over every C(n, k) event set, and an independent
+// brute-force resampling with its own generator and sampler (jstat for means and quantiles).
+
+/** Every k-subset of 0 … n − 1, in lexicographic order (exact enumeration, no random numbers). */
+function allSubsets(n: number, k: number): number[][] {
+  const subsets: number[][] = [];
+  const current: number[] = [];
+  const extend = (start: number): void => {
+    if (current.length === k) {
+      subsets.push([...current]);
+      return;
+    }
+    for (let index = start; index <= n - (k - current.length); index += 1) {
+      current.push(index);
+      extend(index + 1);
+      current.pop();
+    }
+  };
+  extend(0);
+  return subsets;
+}
+
+/**
+ * An independent uniform k-subset sampler for the brute-force check: Park–Miller minimal-standard generator
+ * (Park S.K., Miller K.W. (1988) "Random number generators: good ones are hard to find", Communications of the
+ * ACM 31(10):1192–1201) giving each candidate a random key; the k smallest keys win. Shares no code with
+ * src/stats (neither createRandom nor sampleWithoutReplacement).
+ */
+function parkMillerSubsetSampler(seed: number): <T>(pool: readonly T[], k: number) => T[] {
+  let state = seed;
+  const uniform = (): number => {
+    state = (state * 48271) % 2147483647;
+    return state / 2147483647;
+  };
+  return <T>(pool: readonly T[], k: number): T[] =>
+    pool
+      .map((item) => ({ item, key: uniform() }))
+      .sort((left, right) => left.key - right.key)
+      .slice(0, k)
+      .map(({ item }) => item);
+}
 
 /** 1800 … 1839 with a pulse of 2 in every year ending in 5, else 0: baseline 4·2/40 = 0.2. */
 const PULSE_YEARS = Object.freeze(Array.from({ length: 40 }, (_, index) => 1800 + index));
@@ -188,7 +228,57 @@ describe("superposedEpochAnalysis({ years, values, eventYears, firstLag, lastLag
     expect(Math.abs((result.pValue[0] as number) - exactP)).toBeLessThan(5 * standardError + 1 / draws);
   });
 
-  it("limits and p-values agree with a brute-force resampling (another seed, jstat quantiles) within Monte Carlo error", () => {
+  it("p-values and 95 %/99 % limits at lags −1…1 match the exact distribution over all C(12, 4) = 495 event sets", () => {
+    // Fourteen years, lags −1 … +1: the covered key years are 2 … 13 (12), four events. Every 4-subset of the
+    // pool is equally likely under the randomization, so the exact null distribution of the composite at each
+    // lag is the list of 495 subset composites, enumerated here without any random numbers.
+    const years = Array.from({ length: 14 }, (_, index) => index + 1);
+    const values = [0.4, -1.1, 2.3, 0.2, 1.7, -0.6, 0.9, 2.8, -1.4, 0.5, 1.2, -0.2, 3.1, -0.8];
+    const eventYears = [3, 8, 11, 13];
+    const lags = [-1, 0, 1];
+    const baseline = jStat.mean(values);
+    const departure = (year: number): number => (values[year - 1] as number) - baseline;
+    const pool = years.filter((year) => year - 1 >= 1 && year + 1 <= 14);
+    expect(pool).toHaveLength(12);
+    const subsets = allSubsets(pool.length, eventYears.length);
+    expect(subsets).toHaveLength(495);
+    const draws = 20_000;
+    const result = superposedEpochAnalysis({
+      years, values, eventYears, firstLag: -1, lastLag: 1, draws, random: createRandom(12),
+    });
+    expect(result.poolSize).toBe(12);
+    lags.forEach((lag, lagIndex) => {
+      const exact = subsets.map((subset) => jStat.mean(subset.map((position) => departure((pool[position] as number) + lag))));
+      const observed = jStat.mean(eventYears.map((year) => departure(year + lag)));
+      expect(result.composite[lagIndex] as number).toBeCloseTo(observed, 12);
+      // exact two-sided p: share of event sets at least as far from the pool mean as the observed one
+      const poolMean = jStat.mean(exact);
+      const exactP =
+        exact.filter((value) => Math.abs(value - poolMean) >= Math.abs(observed - poolMean) - 1e-12).length /
+        exact.length;
+      const standardError = Math.sqrt((exactP * (1 - exactP)) / draws);
+      expect(Math.abs((result.pValue[lagIndex] as number) - exactP)).toBeLessThan(5 * standardError + 2 / draws);
+      // limits: the exact share of event sets below each Monte Carlo limit must be close to its nominal level
+      // (tolerance: 5 Monte Carlo standard errors plus one atom of the 495-point distribution)
+      const atLag = [...exact].sort((a, b) => a - b);
+      const shareBelow = (limit: number, inclusive: boolean): number =>
+        atLag.filter((value) => (inclusive ? value <= limit + 1e-12 : value < limit - 1e-12)).length / atLag.length;
+      const ci95 = result.ci95[lagIndex] as [number, number];
+      const ci99 = result.ci99[lagIndex] as [number, number];
+      for (const [limit, level] of [
+        [ci95[0], 0.025],
+        [ci95[1], 0.975],
+        [ci99[0], 0.005],
+        [ci99[1], 0.995],
+      ] as const) {
+        const tolerance = 5 * Math.sqrt((level * (1 - level)) / draws) + 1 / atLag.length;
+        expect(shareBelow(limit, true)).toBeGreaterThanOrEqual(level - tolerance);
+        expect(shareBelow(limit, false)).toBeLessThanOrEqual(level + tolerance);
+      }
+    });
+  });
+
+  it("limits and p-values agree with a brute-force resampling (own generator and sampler, jstat quantiles) within Monte Carlo error", () => {
     const { years, values } = wavySeries(1650, 200);
     const eventYears = [1660, 1671, 1689, 1702, 1715, 1733, 1748, 1760, 1777, 1790, 1811, 1829, 1840];
     const firstLag = -4;
@@ -209,10 +299,10 @@ describe("superposedEpochAnalysis({ years, values, eventYears, firstLag, lastLag
     expect(result.eventsUsed).toEqual(used);
     const compositeOf = (keys: readonly number[], lag: number): number =>
       jStat.mean(keys.map((year) => departureByYear.get(year + lag) as number));
-    const random = createRandom(32);
+    const sample = parkMillerSubsetSampler(32);
     const randomComposites = lags.map(() => [] as number[]);
     for (let draw = 0; draw < draws; draw += 1) {
-      const keys = sampleWithoutReplacement(pool, used.length, random);
+      const keys = sample(pool, used.length);
       lags.forEach((lag, index) => randomComposites[index]?.push(compositeOf(keys, lag)));
     }
     lags.forEach((lag, index) => {
