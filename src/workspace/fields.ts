@@ -1,12 +1,34 @@
 import type { ProblemList } from "./InputError.js";
+import { echoText } from "./limits.js";
 
 const INTEGER = /^[+-]?\d+$/;
 const DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
-/** How a field's text is shown in a problem: quoted, or "an empty cell". */
+/** How a field's text is shown in a problem: a short quoted excerpt with control characters escaped, or "an empty cell". */
 export function foundText(text: string): string {
   if (text === "") return "found an empty cell";
-  return `found ${JSON.stringify(text.length > 40 ? `${text.slice(0, 37)}...` : text)}`;
+  return `found "${echoText(text).replaceAll('"', '\\"')}"`;
+}
+
+/** U+2212 MINUS SIGN, as typeset tables and our own PDF print negative numbers. */
+const UNICODE_MINUS = /\u2212/g;
+
+/**
+ * Decimal number parser: a finite number such as `-0.5`, `1.2e3`, `.25` or `−0.5` written with the
+ * Unicode minus sign U+2212 (read as "-", also in an exponent); no thousands separators, no
+ * spaces inside, no hexadecimal, no "Infinity" or "NaN".
+ *
+ * @param text - the text, already trimmed
+ * @returns the number, or null when the text is not a finite decimal number
+ * @example
+ * parseDecimal("\u22120.5"); // => -0.5
+ * parseDecimal("1e400"); // => null (not finite)
+ */
+export function parseDecimal(text: string): number | null {
+  const ascii = text.replace(UNICODE_MINUS, "-");
+  if (!DECIMAL.test(ascii)) return null;
+  const value = Number(ascii);
+  return Number.isFinite(value) ? value : null;
 }
 
 /** Limits on a number read from a field; both bounds inclusive. */
@@ -37,7 +59,8 @@ function checkRange(value: number, column: string, range: FieldRange, text: stri
  * readInteger("1750", "year", 4, problems); // => 1750
  */
 export function readInteger(text: string, column: string, line: number, problems: ProblemList, range: FieldRange = {}): number | null {
-  const value = INTEGER.test(text) ? Number(text) : NaN;
+  const ascii = text.replace(UNICODE_MINUS, "-");
+  const value = INTEGER.test(ascii) ? Number(ascii) : NaN;
   if (!Number.isSafeInteger(value)) {
     problems.add(line, `${column} must be an integer (${foundText(text)})`);
     return null;
@@ -46,14 +69,14 @@ export function readInteger(text: string, column: string, line: number, problems
 }
 
 /**
- * Decimal field reader: a finite number such as `-0.5`, `1.2e3` or `.25` (no thousands separators).
+ * Decimal field reader: a finite number as {@link parseDecimal} reads it (U+2212 minus allowed).
  *
  * @returns the number, or null after adding a problem `column must be a number (found "…")`
  * @example
  * readNumber("-0.5", "ENSO", 9, problems); // => -0.5
  */
 export function readNumber(text: string, column: string, line: number, problems: ProblemList, range: FieldRange = {}): number | null {
-  const value = DECIMAL.test(text) ? Number(text) : NaN;
+  const value = parseDecimal(text) ?? NaN;
   if (!Number.isFinite(value)) {
     problems.add(line, `${column} must be a number (${foundText(text)})`);
     return null;

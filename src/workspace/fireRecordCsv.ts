@@ -1,6 +1,7 @@
 import { readCsvTable } from "./csvTable.js";
 import { readInteger, readNumber, readOptionalNumber } from "./fields.js";
 import type { ProblemList } from "./InputError.js";
+import { echoText, TEXT_LIMITS } from "./limits.js";
 import type { ActivityRow, FireEvent, ModernFireRow, Site, Warning } from "./types.js";
 
 /** A value read from a CSV row, with the line it came from. */
@@ -38,7 +39,15 @@ export function readSitesCsv(bytes: Uint8Array, problems: ProblemList): Located<
   const sites: Located<Site>[] = [];
   for (const row of table.rows) {
     const id = row.field("site");
+    const name = row.field("name");
     if (id === "") problems.add(row.line, "site must not be empty (found an empty cell)");
+    const tooLong =
+      id.length > TEXT_LIMITS.siteId
+        ? `site id is too long: at most ${TEXT_LIMITS.siteId} characters (found ${id.length})`
+        : name.length > TEXT_LIMITS.siteName
+          ? `name is too long: at most ${TEXT_LIMITS.siteName} characters (found ${name.length})`
+          : null;
+    if (tooLong !== null) problems.add(row.line, tooLong);
     const latitude = readNumber(row.field("latitude"), "latitude", row.line, problems, { min: -90, max: 90 });
     const longitude = readNumber(row.field("longitude"), "longitude", row.line, problems, { min: -180, max: 180 });
     const firstYear = readInteger(row.field("first_year"), "first_year", row.line, problems, YEAR_RANGE);
@@ -47,11 +56,10 @@ export function readSitesCsv(bytes: Uint8Array, problems: ProblemList): Located<
       problems.add(row.line, `first_year must not be after last_year (found ${firstYear} > ${lastYear})`);
       continue;
     }
-    if (id === "" || latitude === null || longitude === null || firstYear === null || lastYear === null) continue;
-    const name = row.field("name");
+    if (id === "" || tooLong !== null || latitude === null || longitude === null || firstYear === null || lastYear === null) continue;
     sites.push({ line: row.line, value: { id, name: name === "" ? null : name, latitude, longitude, firstYear, lastYear } });
   }
-  checkUnique(sites, (site) => site.id, (site) => `site "${site.id}"`, problems);
+  checkUnique(sites, (site) => site.id, (site) => `site "${echoText(site.id)}"`, problems);
   return sites;
 }
 
@@ -70,27 +78,33 @@ export function readEventsCsv(bytes: Uint8Array, problems: ProblemList, file: st
   const events: Located<FireEvent>[] = [];
   const firstLine = new Map<string, number>();
   const repeats: string[] = [];
+  let repeatCount = 0;
   for (const row of table.rows) {
     const site = row.field("site");
     if (site === "") problems.add(row.line, "site must not be empty (found an empty cell)");
+    else if (site.length > TEXT_LIMITS.siteId) {
+      problems.add(row.line, `site id is too long: at most ${TEXT_LIMITS.siteId} characters (found ${site.length})`);
+      continue;
+    }
     const year = readInteger(row.field("year"), "year", row.line, problems, YEAR_RANGE);
     if (site === "" || year === null) continue;
     const key = `${site}\u0000${year}`;
     const earlier = firstLine.get(key);
     if (earlier !== undefined) {
-      repeats.push(`${site} ${year} (lines ${earlier} and ${row.line})`);
+      repeatCount++;
+      if (repeats.length < 5) repeats.push(`${echoText(site)} ${year} (lines ${earlier} and ${row.line})`);
       continue;
     }
     firstLine.set(key, row.line);
     events.push({ line: row.line, value: { site, year } });
   }
   const warnings: Warning[] = [];
-  if (repeats.length > 0) {
-    const shown = repeats.slice(0, 5).join("; ");
-    const more = repeats.length > 5 ? `; and ${repeats.length - 5} more` : "";
+  if (repeatCount > 0) {
+    const shown = repeats.join("; ");
+    const more = repeatCount > 5 ? `; and ${repeatCount - 5} more` : "";
     warnings.push({
       code: "duplicate-event",
-      message: `${file}: ${repeats.length} repeated fire event${repeats.length === 1 ? "" : "s"} counted once: ${shown}${more}`,
+      message: `${file}: ${repeatCount} repeated fire event${repeatCount === 1 ? "" : "s"} counted once: ${shown}${more}`,
     });
   }
   return { events, warnings };

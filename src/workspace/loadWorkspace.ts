@@ -1,10 +1,12 @@
 import { createHash } from "node:crypto";
-import { readFile } from "node:fs/promises";
+import { constants } from "node:fs";
+import { open, stat } from "node:fs/promises";
 import path from "node:path";
 import { didYouMean } from "./didYouMean.js";
 import { readActivityCsv, readEventsCsv, readModernCsv, readSitesCsv, type Located } from "./fireRecordCsv.js";
 import { readIndexCsv } from "./indexCsv.js";
 import { InputError, ProblemList, type InputProblem } from "./InputError.js";
+import { echoText, MAX_DATA_FILE_BYTES, MAX_REGION_JSON_BYTES } from "./limits.js";
 import { parseRegionJson } from "./regionJson.js";
 import type { FireEvent, FireRecordInput, IndexSeries, IndexSettings, InputFile, Site, Warning, Workspace } from "./types.js";
 
@@ -18,17 +20,87 @@ interface LoadedFile {
   readonly sha256: string;
 }
 
-async function readInputFile(absolute: string, problems: ProblemList): Promise<LoadedFile | null> {
+const MIB = 1024 * 1024;
+const mebibytes = (bytes: number): string => `${(bytes / MIB).toFixed(bytes < 10 * MIB ? 1 : 0)} MiB`;
+
+/** What a file system entry that is not a regular file is, for a message. */
+function kindOf(info: { isDirectory(): boolean; isFIFO(): boolean; isCharacterDevice(): boolean; isBlockDevice(): boolean; isSocket(): boolean }): string {
+  if (info.isDirectory()) return "a folder";
+  if (info.isFIFO()) return "a named pipe";
+  if (info.isCharacterDevice() || info.isBlockDevice()) return "a device";
+  if (info.isSocket()) return "a socket";
+  return "not a regular file";
+}
+
+function readError(error: unknown, problems: ProblemList): null {
+  const code = (error as NodeJS.ErrnoException).code;
+  if (code === "ENOENT" || code === "ENOTDIR") problems.add(null, "the file does not exist");
+  else if (code === "EISDIR") problems.add(null, "this is a folder, not a file");
+  else if (code === "EACCES" || code === "EPERM") problems.add(null, "the file cannot be read (permission denied)");
+  else if (code === "ELOOP") problems.add(null, "the file cannot be read (too many levels of symbolic links)");
+  else problems.add(null, `the file cannot be read (${echoText(code ?? String(error))})`);
+  return null;
+}
+
+/**
+ * Reads one input file, which must be a regular file of at most `limit` bytes. The entry is
+ * checked before it is opened (a folder, device, named pipe or socket is refused, so `/dev/zero`
+ * or a FIFO never hangs the reader), opened without blocking, checked again on the open handle,
+ * and read with a bound of `limit + 1` bytes (a file that grows past the limit while being read is
+ * refused too).
+ */
+async function readInputFile(absolute: string, problems: ProblemList, limit: number): Promise<LoadedFile | null> {
+  let info;
   try {
-    const bytes = await readFile(absolute);
+    info = await stat(absolute);
+  } catch (error) {
+    return readError(error, problems);
+  }
+  const refuse = (entry: typeof info): boolean => {
+    if (entry.isDirectory()) {
+      problems.add(null, "this is a folder, not a file");
+      return true;
+    }
+    if (!entry.isFile()) {
+      problems.add(null, `this is ${kindOf(entry)}, not a regular file (data files must be regular files)`);
+      return true;
+    }
+    if (entry.size > limit) {
+      problems.add(null, `the file is too large: ${mebibytes(entry.size)} (at most ${mebibytes(limit)} is read)`);
+      return true;
+    }
+    return false;
+  };
+  if (refuse(info)) return null;
+  let handle;
+  try {
+    handle = await open(absolute, constants.O_RDONLY | constants.O_NONBLOCK);
+  } catch (error) {
+    return readError(error, problems);
+  }
+  try {
+    const opened = await handle.stat();
+    if (refuse(opened)) return null;
+    const buffer = Buffer.alloc(Math.min(opened.size, limit) + 1);
+    let filled = 0;
+    for (;;) {
+      const { bytesRead } = await handle.read(buffer, filled, buffer.length - filled, filled);
+      if (bytesRead === 0) break;
+      filled += bytesRead;
+      if (filled === buffer.length) {
+        if (filled > limit) {
+          problems.add(null, `the file is too large: more than ${mebibytes(limit)} (at most ${mebibytes(limit)} is read)`);
+          return null;
+        }
+        break;
+      }
+    }
+    const bytes = buffer.subarray(0, filled);
     return { bytes, sha256: createHash("sha256").update(bytes).digest("hex") };
   } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    if (code === "ENOENT" || code === "ENOTDIR") problems.add(null, "the file does not exist");
-    else if (code === "EISDIR") problems.add(null, "this is a folder, not a file");
-    else if (code === "EACCES" || code === "EPERM") problems.add(null, "the file cannot be read (permission denied)");
-    else problems.add(null, `the file cannot be read (${code ?? String(error)})`);
-    return null;
+    return readError(error, problems);
+  } finally {
+    await handle.close();
   }
 }
 
@@ -60,7 +132,7 @@ export async function loadWorkspace(given: string): Promise<Workspace> {
   const absoluteRoot = path.resolve(root);
   const shown = (relative: string): string => path.join(root, relative);
   const regionProblems = new ProblemList(shown(REGION_FILE));
-  const regionFile = await readInputFile(path.join(absoluteRoot, REGION_FILE), regionProblems);
+  const regionFile = await readInputFile(path.join(absoluteRoot, REGION_FILE), regionProblems, MAX_REGION_JSON_BYTES);
   if (regionFile === null) {
     throw new InputError(
       regionProblems.toArray().map((problem) =>
@@ -88,7 +160,7 @@ export async function loadWorkspace(given: string): Promise<Workspace> {
   };
   const load = async (role: string, relative: string): Promise<Buffer | null> => {
     const key = path.normalize(relative);
-    if (!cache.has(key)) cache.set(key, await readInputFile(path.resolve(absoluteRoot, relative), listFor(relative)));
+    if (!cache.has(key)) cache.set(key, await readInputFile(path.resolve(absoluteRoot, relative), listFor(relative), MAX_DATA_FILE_BYTES));
     const loaded = cache.get(key) ?? null;
     if (loaded !== null) files.push({ role, path: relative, sha256: loaded.sha256, bytes: loaded.bytes.length });
     return loaded?.bytes ?? null;
@@ -179,12 +251,12 @@ function checkEventsAgainstSites(
       const suggestion = didYouMean(event.value.site, ids);
       problems.add(
         event.line,
-        `unknown site "${event.value.site}" (not in ${sitesName}${suggestion === null ? "" : `; did you mean "${suggestion}"?`})`,
+        `unknown site "${echoText(event.value.site)}" (not in ${echoText(sitesName, 200)}${suggestion === null ? "" : `; did you mean "${echoText(suggestion)}"?`})`,
       );
     } else if (event.value.year < site.firstYear || event.value.year > site.lastYear) {
       problems.add(
         event.line,
-        `fire year ${event.value.year} is outside the recording span of site "${site.id}" (found ${site.firstYear}–${site.lastYear} in ${sitesName})`,
+        `fire year ${event.value.year} is outside the recording span of site "${echoText(site.id)}" (found ${site.firstYear}–${site.lastYear} in ${echoText(sitesName, 200)})`,
       );
     }
   }

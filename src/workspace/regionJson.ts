@@ -167,7 +167,7 @@ const regionSchema = z
         const suggestion = didYouMean(name, names);
         ctx.addIssue({
           code: "custom",
-          message: `"${name}" is not an index of this region${suggestion === null ? ` (indices: ${names.join(", ")})` : ` (did you mean "${suggestion}"?)`}`,
+          message: `"${echoText(name)}" is not an index of this region${suggestion === null ? ` (indices: ${names.map((known) => echoText(known)).join(", ")})` : ` (did you mean "${echoText(suggestion)}"?)`}`,
           path: ["outlook", "values", name],
         });
       }
@@ -239,7 +239,7 @@ function checkProtoKeys(raw: Record<string, unknown>, locations: ReturnType<type
 }
 
 const dotted = (path: readonly PropertyKey[]): string =>
-  path.map((key, i) => (typeof key === "number" ? `[${key}]` : `${i === 0 ? "" : "."}${String(key)}`)).join("");
+  path.map((key, i) => (typeof key === "number" ? `[${key}]` : `${i === 0 ? "" : "."}${echoText(String(key))}`)).join("");
 
 /** Keys that were renamed, with the hint shown when the old key is used. */
 const RENAMED_KEYS: ReadonlyMap<string, { readonly key: string; readonly hint: string }> = new Map([
@@ -306,7 +306,7 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
   }
   for (const duplicate of locations.duplicateKeys) {
     const where = duplicate.path.length === 0 ? "" : ` in "${dotted(duplicate.path)}"`;
-    problems.add(duplicate.line, `key "${duplicate.key}" appears twice${where}`);
+    problems.add(duplicate.line, `key "${echoText(duplicate.key)}" appears twice${where}`);
   }
   const raw: unknown = JSON.parse(source);
   if (raw === null || typeof raw !== "object" || Array.isArray(raw)) {
@@ -327,7 +327,7 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
             suggestion === null
               ? ` (allowed: ${known.join(", ")})`
               : ` (did you mean "${suggestion}"?${renamed === undefined ? "" : ` ${renamed.hint}`})`;
-          problems.add(locations.lineOf([...issue.path.map(String), key]), `unknown key "${key}"${where}${hint}`);
+          problems.add(locations.lineOf([...issue.path.map(String), key]), `unknown key "${echoText(key)}"${where}${hint}`);
         }
         continue;
       }

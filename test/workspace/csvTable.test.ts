@@ -38,8 +38,19 @@ describe("readCsvTable(bytes, required, problems)", () => {
     expect(read('year,a\n1700,"bad"x\n1701,2\n1702,"open\n').problems).toEqual([
       { file: "f.csv", line: 2, message: "a closing quote must be followed by a comma or the end of the line" },
     ]);
+    // Reported where the record starts and the quote opened (line 3), not at the end of the file.
     expect(read('year,a\n1700,1\n1701,"open\n1702,3\n').problems).toEqual([
-      { file: "f.csv", line: 4, message: "a quoted field is not closed before the end of the file" },
+      { file: "f.csv", line: 3, message: "a quoted field opened on this line is not closed before the end of the file" },
+    ]);
+    expect(read('year,a,b\r\n1700,"two\r\nlines",1\r\n1701,"x","open\r\n').problems).toEqual([
+      { file: "f.csv", line: 4, message: "a quoted field opened on this line is not closed before the end of the file" },
+    ]);
+    expect(read('year,a,b\n1700,"two\nlines","open\n1702,3\n').problems).toEqual([
+      {
+        file: "f.csv",
+        line: 2,
+        message: "the record starting on this line has a quoted field opened on line 3 that is not closed before the end of the file",
+      },
     ]);
   });
 
