@@ -10,6 +10,8 @@ import { aggregatedLagCorrelation } from "./aggregatedLagCorrelation.js";
 import { buildTrainingSet, phaseCounts, type IndexValues } from "./buildTrainingSet.js";
 import { calibrationPeriod } from "./calibrationPeriod.js";
 import { contingencyByPhase } from "./contingencyByPhase.js";
+import { fitOnTraining } from "./curveForecast.js";
+import { modernEra } from "./modernEra.js";
 import { proportionEstimate } from "./proportionEstimate.js";
 import { seaForIndex } from "./seaForIndex.js";
 import { stabilityWindows } from "./stabilityWindows.js";
@@ -24,7 +26,8 @@ export interface CalibrationOptions {
  * Calibrates a region: composites the fire record, picks the fire years and activity terciles of
  * the calibration period, and for each index computes the conditional odds of a fire year by phase,
  * the contingency tests, the superposed epoch analysis, the aggregated lag correlation and the
- * stability through time. Benjamini–Hochberg q-values (Benjamini Y., Hochberg Y. 1995, "Controlling
+ * stability through time, and the logistic response curve of high-fire year on the index value; then the
+ * modern fire record as a second era (see modernEra). Benjamini–Hochberg q-values (Benjamini Y., Hochberg Y. 1995, "Controlling
  * the false discovery rate", JRSS B 57:289–300) are computed across all indices' chi-square tests.
  * Pure: the same workspace (and seed) gives the same Calibration.
  */
@@ -150,6 +153,7 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
     });
     const calibrationValues = period.years.flatMap((year) => (values.has(year) ? [values.get(year) as number] : []));
     const moments = meanAndStandardDeviation(calibrationValues);
+    const fitted = fitOnTraining(training, indexValues, name);
     return {
       name,
       definition,
@@ -161,6 +165,8 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
       stability: { window: settings.methods.stabilityWindow, step: settings.methods.stabilityStep, windows },
       mean: moments.mean,
       sd: moments.sd,
+      curve: fitted.curve,
+      ...(fitted.curve === null ? { curveReason: fitted.reason } : {}),
     };
   });
 
@@ -168,6 +174,17 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
   const indices = calibrated.map((index, i) => {
     const q = qValues[i];
     return { ...index, contingency: { ...index.contingency, qValue: q !== undefined && Number.isFinite(q) ? q : null } };
+  });
+
+  const modern = modernEra({
+    rows: workspace.modern,
+    measure: settings.methods.modernMeasure ?? "area",
+    top: settings.fireYears.top,
+    indexValues,
+    indices,
+    calibrationYears: period.years,
+    fireScarFireYears: training.isFireYear,
+    interval: method,
   });
 
   return {
@@ -182,5 +199,7 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
     interval: method,
     seed: settings.seed,
     warnings,
+    modern: modern.modern,
+    ...(modern.modern === null ? { modernReason: modern.reason } : {}),
   };
 }

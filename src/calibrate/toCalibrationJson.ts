@@ -1,4 +1,4 @@
-import type { Calibration } from "./types.js";
+import type { Calibration, ModernEra, ResponseCurve } from "./types.js";
 
 /** Schema name of `firephase calibrate --json` (promised interface, README "JSON output"). */
 export const CALIBRATION_SCHEMA = "firephase.calibration/1";
@@ -45,6 +45,8 @@ export function toCalibrationJson(calibration: Calibration): Record<string, unkn
       },
       aggregated: index.aggregated,
       stability: index.stability,
+      curve: index.curve === undefined || index.curve === null ? null : curveJson(index.curve),
+      ...(index.curve === undefined || index.curve === null ? { curveReason: index.curveReason ?? "the response curve was not computed" } : {}),
     };
   }
   return {
@@ -69,6 +71,72 @@ export function toCalibrationJson(calibration: Calibration): Record<string, unkn
     interval: calibration.interval,
     seed: calibration.seed,
     indices,
+    modern: calibration.modern === undefined || calibration.modern === null ? null : modernJson(calibration.modern),
+    ...(calibration.modern === undefined || calibration.modern === null
+      ? { modernReason: calibration.modernReason ?? "the modern era was not computed" }
+      : {}),
     warnings: calibration.warnings,
+  };
+}
+
+/** JSON form of a response curve (`indices.<NAME>.curve`), in a fixed key order. */
+function curveJson(curve: ResponseCurve): Record<string, unknown> {
+  return {
+    intercept: curve.intercept,
+    slope: curve.slope,
+    standardErrors: curve.standardErrors,
+    covariance: curve.covariance,
+    likelihoodRatio: curve.likelihoodRatio,
+    pValue: curve.pValue,
+    method: curve.method,
+    separation: curve.separation,
+    converged: curve.converged,
+    iterations: curve.iterations,
+    aic: curve.aic,
+    years: curve.years,
+    fireYears: curve.fireYears,
+    range: curve.range,
+    level: curve.level,
+    band: curve.band,
+    points: curve.points,
+    quadratic:
+      curve.quadratic === null
+        ? null
+        : {
+            coefficients: curve.quadratic.coefficients,
+            standardErrors: curve.quadratic.standardErrors,
+            covariance: curve.quadratic.covariance,
+            likelihoodRatio: curve.quadratic.likelihoodRatio,
+            pValue: curve.quadratic.pValue,
+            aic: curve.quadratic.aic,
+            method: curve.quadratic.method,
+            points: curve.quadratic.points,
+          },
+    ...(curve.quadratic === null ? { quadraticReason: curve.quadraticReason ?? "not reported" } : {}),
+    quadraticRule: curve.quadraticRule,
+  };
+}
+
+/** JSON form of the modern era (`modern`), indices keyed by name, in a fixed key order. */
+function modernJson(modern: ModernEra): Record<string, unknown> {
+  const indices: Record<string, unknown> = {};
+  for (const index of modern.indices) {
+    indices[index.name] = { years: index.years, phases: index.phases, homogeneity: index.homogeneity };
+  }
+  return {
+    measure: modern.measure,
+    period: modern.period,
+    years: modern.years,
+    top: modern.top,
+    threshold: modern.threshold,
+    ...(modern.threshold === null ? { thresholdReason: "no modern year has a value above 0" } : {}),
+    fireYears: modern.fireYears,
+    realisedShare: modern.realisedShare,
+    baseRate: modern.baseRate,
+    meaning: modern.meaning,
+    agreement: modern.agreement,
+    homogeneityDefinition: modern.homogeneityDefinition,
+    indices,
+    warnings: modern.warnings,
   };
 }
