@@ -17,10 +17,12 @@ describe("formatValues", () => {
     expect(() => formatDecimal(Number.NaN, 2)).toThrow(RangeError);
   });
   it("formatPValue(p) prints <0.001, three decimals below 0.01, two above", () => {
-    // Agresti (2007) p. 39 party identification × gender: p = 2.954e-07 (REFERENCES.md §3).
+    // Agresti A. (2007) An Introduction to Categorical Data Analysis, 2nd ed., Wiley, p. 39, party
+    // identification × gender: p = 2.954e-07 (the R ?chisq.test example).
     expect(formatPValue(2.954e-7)).toBe("<0.001");
     expect(formatPValue(0.0027)).toBe("0.003");
-    // Ross, chi-square 2×3 worked example: p = 0.04010 (REFERENCES.md §3, C).
+    // Ross S.M., Introduction to Probability and Statistics for Engineers and Scientists, ch. 11 chi-square 2×3
+    // worked example (TS = 6.433): p = 0.04010 (recomputed).
     expect(formatPValue(0.0401)).toBe("0.04");
     expect(() => formatPValue(1.2)).toThrow(RangeError);
   });

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { classifyPhase, isNearBoundary, phaseDefinition } from "../../src/climate/phaseDefinition.js";
 
 describe("classifyPhase(value, cuts)", () => {
-  // ENSO threshold convention, inclusive form: warm when ≥ +0.5, cold when ≤ −0.5 (REFERENCES.md §10, V-secondary)
+  // ENSO threshold convention, inclusive form: warm when ≥ +0.5, cold when ≤ −0.5 (NOAA Climate Prediction Center, Oceanic Niño Index episode threshold ±0.5 °C)
   it("is inclusive at the outer phases", () => {
     expect(classifyPhase(-0.5, [-0.5, 0.5])).toBe(0);
     expect(classifyPhase(0.5, [-0.5, 0.5])).toBe(2);

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { activityCategories, categoryOf } from "../../src/record/activityCategories.js";
 
 describe("activityCategories(activity, years)", () => {
-  it("splits 1..30 at the type-7 terciles 10.667 and 20.333 into 10/10/10 (Hyndman & Fan 1996; REFERENCES.md §12, C)", () => {
+  it("splits 1..30 at the type-7 terciles 10.667 and 20.333 into 10/10/10 (Hyndman & Fan 1996, The American Statistician 50:361–365, definition 7; recomputed)", () => {
     const years = Array.from({ length: 30 }, (_, i) => i + 1);
     const result = activityCategories(new Map(years.map((y) => [y, y])), years);
     expect(result.lowerCut).toBeCloseTo(10.6667, 4);

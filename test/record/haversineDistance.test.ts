@@ -16,7 +16,7 @@ function lawOfCosines(a: { latitude: number; longitude: number }, b: { latitude:
 
 describe("haversineDistance(a, b, radiusKm)", () => {
   // Rosetta Code, task "Haversine formula": BNA (36.12, -86.67) to LAX (33.94, -118.40).
-  // REFERENCES.md §11, V-secondary; the same digits were recomputed in Python and Node (C).
+  // Value as quoted by many repository tests of that task; the same digits were recomputed in Python and Node.
   it("haversineDistance(BNA, LAX) with R = 6371.0 km → 2886.4444428379834 km (Rosetta Code)", () => {
     expect(MEAN_EARTH_RADIUS_KM).toBe(6371.0);
     expect(haversineDistance(BNA, LAX)).toBeCloseTo(2886.4444428379834, 9);

@@ -4,7 +4,10 @@ import { brierScore } from "../../src/stats/brierScore.js";
 import { createRandom } from "../../src/stats/createRandom.js";
 import { StatsInputError } from "../../src/stats/StatsInputError.js";
 
-/** Finley's tornado forecasts (REFERENCES.md §7): H 28, F 72, M 23, C 2680 as 0/1 forecasts and outcomes. */
+/**
+ * Finley's tornado forecasts (Finley J.P. (1884) American Meteorological Journal 1:85–88): H 28, F 72, M 23,
+ * C 2680 as 0/1 forecasts and outcomes.
+ */
 function finleyCases(): { forecasts: number[]; outcomes: (0 | 1)[] } {
   const forecasts: number[] = [];
   const outcomes: (0 | 1)[] = [];
@@ -23,13 +26,13 @@ function finleyCases(): { forecasts: number[]; outcomes: (0 | 1)[] } {
 
 describe("brierScore(probabilities, outcomes)", () => {
   it("brierScore([0.1, 0.9, 0.8, 0.3], [0, 1, 1, 0]) = 0.0375", () => {
-    // REFERENCES.md §7: the scikit-learn brier_score_loss docstring example, 0.0375 — the docstring is quoted
+    // The scikit-learn brier_score_loss docstring example, 0.0375 — the docstring is quoted
     // from memory (M); the value is recomputed (C): (0.01 + 0.01 + 0.04 + 0.09)/4 = 0.0375.
     expect(brierScore([0.1, 0.9, 0.8, 0.3], [0, 1, 1, 0])).toBeCloseTo(0.0375, 15);
   });
 
   it("brierScore of Finley's 0/1 tornado forecasts = 95/2803 = 0.03389", () => {
-    // REFERENCES.md §7, Finley J.P. (1884) American Meteorological Journal 1:85–88 (table V-secondary);
+    // Finley J.P. (1884) American Meteorological Journal 1:85–88 (table as quoted by secondary sources);
     // BS = (misses + false alarms)/N = 95/2803 is level C.
     const { forecasts, outcomes } = finleyCases();
     expect(brierScore(forecasts, outcomes)).toBeCloseTo(95 / 2803, 15);
@@ -48,7 +51,7 @@ describe("brierScore(probabilities, outcomes)", () => {
   });
 
   it("brierScore(p, o) is half of Brier's (1950) two-category sum", () => {
-    // Brier's original sums over event and non-event; REFERENCES.md §7 (the 0–2 range is M).
+    // Brier G.W. (1950) Monthly Weather Review 78(1):1–3 sums over event and non-event (the 0–2 range is from memory).
     const probabilities = [0.05, 0.4, 0.75, 1, 0];
     const outcomes: (0 | 1)[] = [0, 1, 0, 1, 0];
     const twoCategory = jStat.mean(

@@ -6,7 +6,7 @@ import { StatsInputError } from "../../src/stats/StatsInputError.js";
 
 describe("brierSkillScore(score, referenceScore)", () => {
   it("brierSkillScore(0.0375, 0.25) = 0.85: the four-case example against its 50 % climatology", () => {
-    // REFERENCES.md §7: BS = 0.0375 (scikit-learn docstring, from memory, M; recomputed, C) and
+    // BS = 0.0375: the scikit-learn brier_score_loss docstring example (docstring from memory; recomputed) and
     // BSS = 1 − BS/BS_ref with BS_ref = ō(1 − ō) = 0.25 for ō = 1/2 (definition, AMS Glossary, read).
     const outcomes: (0 | 1)[] = [0, 1, 1, 0];
     const score = brierScore([0.1, 0.9, 0.8, 0.3], outcomes);
@@ -16,7 +16,8 @@ describe("brierSkillScore(score, referenceScore)", () => {
   });
 
   it("the climatological reference score ō(1 − ō) equals jstat's population variance of the outcomes", () => {
-    // Finley's table (REFERENCES.md §7): 51 tornadoes in 2803 cases; forecasts 0/1 give BS = 95/2803.
+    // Finley J.P. (1884) American Meteorological Journal 1:85–88, tornado table: 51 tornadoes in 2803 cases;
+    // forecasts 0/1 give BS = 95/2803.
     const outcomes: (0 | 1)[] = [...new Array<0 | 1>(51).fill(1), ...new Array<0 | 1>(2752).fill(0)];
     const frequency = 51 / 2803;
     const reference = brierScore(outcomes.map(() => frequency), outcomes);

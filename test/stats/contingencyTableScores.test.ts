@@ -5,7 +5,11 @@ import { contingencyTableScores } from "../../src/stats/contingencyTableScores.j
 import { createRandom } from "../../src/stats/createRandom.js";
 import { StatsInputError } from "../../src/stats/StatsInputError.js";
 
-/** Finley J.P. (1884) tornado forecasts, REFERENCES.md §7 (table V-secondary; citation details M). */
+/**
+ * Finley J.P. (1884) tornado forecasts, American Meteorological Journal 1:85–88, as discussed by Murphy A.H. (1996)
+ * "The Finley affair", Weather and Forecasting 11:3–20 (table as quoted by secondary sources; citation details
+ * from memory).
+ */
 const FINLEY = Object.freeze({ hits: 28, misses: 23, falseAlarms: 72, correctNegatives: 2680 });
 
 /** Expands a table into case-by-case 0/1 forecasts and outcomes. */
@@ -27,7 +31,7 @@ function cases(table: Parameters<typeof contingencyTableScores>[0]): { forecast:
 
 describe("contingencyTableScores({ hits, misses, falseAlarms, correctNegatives })", () => {
   it("Finley's tornado table: published percent correct 0.966, threat score 0.228, POD 0.549, FAR 0.720", () => {
-    // V-secondary (lecture slide text quoted in REFERENCES.md §7).
+    // Published values as quoted in verification lecture notes on Finley's table (secondary sources).
     const scores = contingencyTableScores(FINLEY);
     expect(scores.percentCorrect).toBeCloseTo(0.966, 3);
     expect(scores.threatScore).toBeCloseTo(0.228, 3);
@@ -36,7 +40,7 @@ describe("contingencyTableScores({ hits, misses, falseAlarms, correctNegatives }
   });
 
   it("Finley's tornado table: bias 1.961, POFD 0.02616, Heidke 0.3553, Peirce 0.5229, ETS 0.2160", () => {
-    // REFERENCES.md §7 level C (recomputed, not published numbers).
+    // Recomputed from Finley's table (derived, not published numbers).
     const scores = contingencyTableScores(FINLEY);
     expect(scores.bias).toBeCloseTo(1.961, 3);
     expect(scores.falseAlarmRate).toBeCloseTo(0.02616, 5);

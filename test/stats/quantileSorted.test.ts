@@ -8,7 +8,7 @@ const ONE_TO_THIRTY = Object.freeze(Array.from({ length: 30 }, (_, index) => ind
 
 describe("quantileSorted(sorted, p)", () => {
   it("quantileSorted(1…30, 1/3) = 10.667 and (…, 2/3) = 20.333 (tercile boundaries, type 7)", () => {
-    // REFERENCES.md §12: empirical tercile boundaries of x = 1..30 by Hyndman & Fan type; type 7 gives
+    // Empirical tercile boundaries of x = 1..30 by Hyndman & Fan type; type 7 gives
     // 10.667 / 20.333. Level C (recomputed); Hyndman R.J., Fan Y. (1996) "Sample quantiles in statistical
     // packages", The American Statistician 50:361–365, definition 7 (the paper's details: M, from memory).
     expect(quantileSorted(ONE_TO_THIRTY, 1 / 3)).toBeCloseTo(10.667, 3);

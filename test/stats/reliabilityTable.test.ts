@@ -43,7 +43,7 @@ describe("reliabilityTable(probabilities, outcomes, binEdges?)", () => {
 
   it("Murphy (1973) decomposition BS = REL − RES + UNC holds exactly when forecasts sit on bin values", () => {
     // Murphy A.H. (1973) "A new vector partition of the probability score", J. Appl. Meteor. 12:595–600
-    // (REFERENCES.md §7, definitions consistent with the AMS Glossary): with every forecast equal to its bin
+    // (definitions consistent with the AMS Glossary of Meteorology, "Brier score"): with every forecast equal to its bin
     // value, REL = Σ nₖ(pₖ − ōₖ)²/N, RES = Σ nₖ(ōₖ − ō)²/N, UNC = ō(1 − ō).
     const random = createRandom(92);
     const values = [0.05, 0.15, 0.25, 0.35, 0.45, 0.55, 0.65, 0.75, 0.85, 0.95];

@@ -4,7 +4,7 @@ import { StatsInputError } from "../../src/stats/StatsInputError.js";
 
 describe("rocCurve(scores, outcomes)", () => {
   it("Hanley & McNeil (1982) Table I ratings give the published cumulative operating points", () => {
-    // Hanley J.A., McNeil B.J. (1982) Radiology 143(1):29–36, Table I (REFERENCES.md §6, data V-secondary).
+    // Hanley J.A., McNeil B.J. (1982) Radiology 143(1):29–36, Table I (data as quoted by secondary sources).
     // Calling "abnormal" at rating ≥ t: abnormal counts from the top 33, 44, 46, 48, 51 of 51;
     // normal counts 2, 13, 19, 25, 58 of 58 (cumulated from the table by hand).
     const ratings: number[] = [];
