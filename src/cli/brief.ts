@@ -1,4 +1,4 @@
-import { readFile } from "node:fs/promises";
+import { mkdir, readFile, rmdir, stat } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
 import { basename, isAbsolute, join, resolve } from "node:path";
 import { Command } from "commander";
@@ -16,7 +16,9 @@ import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
 import { addOutlookOptions, resolveOutlookRequest } from "./outlookRequest.js";
 import { firephaseVersion } from "./version.js";
-import { checkOutputTargets, OutputPathError, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
+import { jsonText } from "./printJson.js";
+import { toOutlookJson } from "../outlook/toOutlookJson.js";
+import { checkOutputTargets, OutputPathError, outputNameProblem, realTarget, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
 
 /** Options of `firephase brief`, as commander parses them. */
 export interface BriefOptions {
@@ -27,12 +29,17 @@ export interface BriefOptions {
   readonly html?: string;
   readonly paper?: string;
   readonly browser?: string;
+  /** `--force`: replace an existing PDF, HTML or kept outlook. */
+  readonly force?: boolean;
+  /** `--no-keep` sets this false: do not keep the outlook in `<region>/issued/`. */
+  readonly keep?: boolean;
 }
 
 /** What `brief` needs from the process; tests pass their own. */
 export interface BriefContext {
   /** Folder that relative --out/--html paths and the default output name refer to. */
   readonly cwd: string;
+  /** The clock: today's local date for the issue date, and the moment the briefing is made (`madeAt`). */
   readonly today: Date;
   readonly env: Readonly<Record<string, string | undefined>>;
   /** Path of SAFETY.md, printed in the appendix (default: the package's own). */
@@ -43,6 +50,8 @@ export interface BriefContext {
 export interface BriefResult {
   readonly pdfPath: string;
   readonly htmlPath: string | null;
+  /** The kept outlook (`<region>/issued/<season>-<issue date>.json`), or null with `--no-keep`. */
+  readonly keptPath: string | null;
   readonly pages: number | null;
   /** The outlook's plain-language warnings (also printed on page 1), for stderr. */
   readonly notes: readonly string[];
@@ -73,6 +82,45 @@ async function outputChecked<T>(work: () => Promise<T>): Promise<T> {
     if (error instanceof OutputPathError) throw new UsageError(error.message);
     throw error;
   }
+}
+
+const FORCE_HINT = "give --force to replace it";
+
+/** `--out` must name a .pdf file and `--html` an .html or .htm file (any letter case). */
+function checkOutputNames(options: BriefOptions): void {
+  for (const [flag, name] of [["--out", options.out], ["--html", options.html]] as const) {
+    if (name === undefined) continue;
+    if (name.trim() === "") throw new UsageError(`${flag} is empty: give a file name${flag === "--out" ? " ending in .pdf" : ""}`);
+    const problem = outputNameProblem(name);
+    if (problem !== null) throw new UsageError(`cannot write ${name}: ${problem}`);
+  }
+  if (options.out !== undefined && options.out.trim() !== "" && !/\.pdf$/i.test(options.out)) {
+    throw new UsageError(`--out must name a .pdf file (found "${options.out}")`);
+  }
+  if (options.html !== undefined && options.html.trim() !== "" && !/\.html?$/i.test(options.html)) {
+    throw new UsageError(`--html must name an .html or .htm file (found "${options.html}")`);
+  }
+}
+
+/**
+ * Name of the briefing PDF when `--out` is not given: `briefing-<region folder>-<season>-<issue
+ * date>.pdf`, so each season and each issue keeps its own file.
+ *
+ * @example
+ * defaultBriefingName("demo-region", 2027, "2027-03-10"); // => "briefing-demo-region-2027-2027-03-10.pdf"
+ */
+export function defaultBriefingName(regionFolder: string, season: number, issued: string): string {
+  return `briefing-${regionFolder}-${season}-${issued}.pdf`;
+}
+
+/**
+ * Where `brief` keeps the outlook it issued: `<region>/issued/<season>-<issue date>.json`.
+ *
+ * @example
+ * keptOutlookPath("demo-region", 2027, "2027-03-10"); // => "demo-region/issued/2027-2027-03-10.json"
+ */
+export function keptOutlookPath(region: string, season: number, issued: string): string {
+  return join(region, "issued", `${season}-${issued}.json`);
 }
 
 function paperOption(value: string | undefined): PaperSize {
@@ -106,13 +154,17 @@ function paperOption(value: string | undefined): PaperSize {
  */
 export async function runBrief(region: string, options: BriefOptions, context: BriefContext): Promise<BriefResult> {
   const paper = paperOption(options.paper);
+  checkOutputNames(options);
+  const force = options.force === true;
+  const keep = options.keep !== false;
+  const replace = { replace: force, hint: FORCE_HINT };
   const outGiven = options.out === undefined ? null : located(options.out, context.cwd);
   const htmlGiven = options.html === undefined ? null : located(options.html, context.cwd);
   if (outGiven !== null && htmlGiven !== null && resolve(outGiven) === resolve(htmlGiven)) {
     throw new UsageError(`--out and --html name the same file (${htmlGiven}): give the HTML another name`);
   }
   // Bad output locations fail before any work is done.
-  await outputChecked(() => checkOutputTargets([outGiven, htmlGiven].filter((path): path is string => path !== null)));
+  await outputChecked(() => checkOutputTargets([outGiven, htmlGiven].filter((path): path is string => path !== null), replace));
   // Start the browser now: it launches while the statistics are computed.
   const printerPromise = findBrowser({ explicit: options.browser, env: context.env })
     .then((browser) => PdfPrinter.launch(browser))
@@ -128,13 +180,37 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   printerPromise.catch(() => undefined); // observed below; never an unhandled rejection
   try {
     const workspace = await loadWorkspace(located(region, context.cwd));
-    // Never overwrite the region's own inputs with a briefing.
+    // Never overwrite the region's own inputs with a briefing (real paths: links resolved).
+    const inputs = await Promise.all(workspace.files.map(async (file) => ({ file, real: await realTarget(resolve(workspace.root, file.path)) })));
     for (const target of [outGiven, htmlGiven]) {
       if (target === null) continue;
-      const input = workspace.files.find((file) => resolve(workspace.root, file.path) === resolve(target));
-      if (input !== undefined) throw new UsageError(`cannot write ${target}: it is the region's input file ${input.path}`);
+      const real = await realTarget(target);
+      const input = inputs.find((entry) => entry.real === real);
+      if (input !== undefined) throw new UsageError(`cannot write ${target}: it is the region's input file ${input.file.path}`);
     }
     const request = resolveOutlookRequest(workspace, options, context.today);
+    const shownRegion = workspace.shownRoot ?? located(region, context.cwd);
+    const pdfTarget = outGiven ?? located(defaultBriefingName(basename(workspace.root), request.season, request.issued), context.cwd);
+    const keptTarget = keep ? keptOutlookPath(shownRegion, request.season, request.issued) : null;
+    const issuedFolder = join(workspace.root, "issued");
+    const issuedFolderExists = await stat(issuedFolder).then(
+      (found) => {
+        if (!found.isDirectory()) throw new UsageError(`cannot keep the outlook: ${join(shownRegion, "issued")} is not a folder (give --no-keep to skip keeping)`);
+        return true;
+      },
+      () => false,
+    );
+    const targets = [pdfTarget, ...(htmlGiven === null ? [] : [htmlGiven])];
+    await outputChecked(() => checkOutputTargets(targets, replace));
+    if (keptTarget !== null && issuedFolderExists) {
+      const kept = await stat(keptTarget).catch(() => null);
+      if (kept !== null && !force) {
+        throw new UsageError(
+          `the outlook of the ${request.season} season issued ${request.issued} is already kept in ${keptTarget}; give --force to replace it, or --no-keep`,
+        );
+      }
+      await outputChecked(() => checkOutputTargets([...targets, keptTarget], { replace: true }));
+    }
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
     const outlook = buildOutlook(workspace, calibration, request);
     const safetyPath = context.safetyPath ?? PACKAGE_SAFETY_PATH;
@@ -144,10 +220,10 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     } catch {
       throw new Error(`cannot read ${safetyPath}: the briefing prints its cautions and must not be made without them`);
     }
-    const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper });
+    const madeAt = context.today.toISOString();
+    const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper, madeAt });
     const html = renderBriefingHtml(view);
-    const pdfTarget = outGiven ?? located(`briefing-${basename(workspace.root)}-${outlook.issued}.pdf`, context.cwd);
-    await outputChecked(() => checkOutputTargets(htmlGiven === null ? [pdfTarget] : [pdfTarget, htmlGiven]));
+    await outputChecked(() => checkOutputTargets(targets, replace));
     let printer: PdfPrinter;
     try {
       printer = await printerPromise;
@@ -162,10 +238,24 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     });
     const files: FileToWrite[] = [{ path: pdfTarget, data: printed.pdf }];
     if (htmlGiven !== null) files.push({ path: htmlGiven, data: html });
-    await outputChecked(() => writeFilesAtomic(files));
+    if (keptTarget !== null) files.push({ path: keptTarget, data: jsonText(toOutlookJson(outlook)) });
+    let madeFolder = false;
+    if (keptTarget !== null && !(await stat(issuedFolder).then(() => true, () => false))) {
+      await mkdir(issuedFolder).catch((error: unknown) => {
+        throw new UsageError(`cannot keep the outlook: cannot make the folder ${join(shownRegion, "issued")} (${error instanceof Error ? error.message : String(error)}); give --no-keep to skip keeping`);
+      });
+      madeFolder = true;
+    }
+    try {
+      await outputChecked(() => writeFilesAtomic(files, replace));
+    } catch (error) {
+      if (madeFolder) await rmdir(issuedFolder).catch(() => undefined);
+      throw error;
+    }
     return {
       pdfPath: resolve(pdfTarget),
       htmlPath: htmlGiven === null ? null : resolve(htmlGiven),
+      keptPath: keptTarget === null ? null : resolve(keptTarget),
       pages: pdfPageCount(printed.pdf),
       notes: outlook.warnings.map((warning) => warning.message),
     };
@@ -189,16 +279,19 @@ export function briefCommand(): Command {
       .description("write the dated PDF briefing: odds, phases, skill, charts, methods and cautions")
       .argument("<region>", "region folder (holds region.json)"),
   )
-    .option("--out <file>", "PDF to write (default: briefing-<region>-<issue date>.pdf here)")
+    .option("--out <file>", "PDF to write, ending in .pdf (default: briefing-<region>-<season>-<issue date>.pdf here)")
     .option("--html <file>", "also write the briefing as one self-contained HTML file")
     .option("--paper <size>", "a4 or letter", "a4")
     .option("--browser <path>", "Chrome or Chromium to print with (default: FIREPHASE_BROWSER, a system browser, then the bundled one)")
+    .option("--force", "replace an existing PDF, HTML or kept outlook of the same name")
+    .option("--no-keep", "do not keep this outlook in <region>/issued/ (kept outlooks are what firephase review scores)")
     .action(async (region: string, options: BriefOptions) => {
       try {
         const result = await runBrief(region, options, { cwd: process.cwd(), today: new Date(), env: process.env });
         for (const note of result.notes) process.stderr.write(`note: ${note}\n`);
         process.stdout.write(`${result.pdfPath}\n`);
         if (result.htmlPath !== null) process.stdout.write(`${result.htmlPath}\n`);
+        if (result.keptPath !== null) process.stderr.write(`note: kept this outlook as ${result.keptPath} (firephase review scores it)\n`);
       } catch (error) {
         handleError(error);
       }

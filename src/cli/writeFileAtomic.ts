@@ -6,8 +6,8 @@
  * put back as they were (the old file restored, or the new one removed).
  */
 import { randomBytes } from "node:crypto";
-import { constants } from "node:fs";
-import { access, copyFile, link, open, rename, stat, unlink } from "node:fs/promises";
+import { constants, existsSync, statSync } from "node:fs";
+import { access, copyFile, link, lstat, open, realpath, rename, stat, unlink } from "node:fs/promises";
 import { basename, dirname, join, resolve } from "node:path";
 
 /** One file to write. */
@@ -41,12 +41,23 @@ function errorCode(error: unknown): string | undefined {
   return typeof error === "object" && error !== null && "code" in error && typeof error.code === "string" ? error.code : undefined;
 }
 
+function folderExists(folder: string): boolean {
+  try {
+    return existsSync(folder) && statSync(folder).isDirectory();
+  } catch {
+    return false;
+  }
+}
+
 /** A file-system error in plain words, without any path (so no temporary name leaks out). */
 function reasonOf(error: unknown, path: string): string {
   const folder = dirname(path);
   switch (errorCode(error)) {
     case "ENOENT":
-      return `the folder ${folder} does not exist`;
+      // A folder that exists but refuses new files (/proc, /sys) also answers ENOENT.
+      return folderExists(folder)
+        ? `the folder ${folder} does not accept new files (a system folder such as /proc or /sys?)`
+        : `the folder ${folder} does not exist`;
     case "ENOTDIR":
       return `${folder} is not a folder`;
     case "EISDIR":
@@ -72,26 +83,79 @@ function reasonOf(error: unknown, path: string): string {
   }
 }
 
+/** Options of {@link checkOutputTargets} and {@link writeFilesAtomic}. */
+export interface OutputOptions {
+  /**
+   * May an existing regular file be replaced? Default true. When false, an existing target is
+   * refused with `it already exists` and `hint` (e.g. "give --force to replace it").
+   */
+  readonly replace?: boolean;
+  /** Words added to the "already exists" reason, e.g. "give --force to replace it". */
+  readonly hint?: string;
+}
+
 /**
- * Check, before any work is done, that a file could be written at each path: no path is named
- * twice (after resolving against the working folder, or as two names of one existing file), each
- * folder exists, is a folder and is writable, and no target is itself a folder.
+ * The real location of a path that may not exist yet: the real path (links resolved) of an
+ * existing file, else the real path of its folder joined with its name; when the folder does not
+ * exist either, the path resolved against the working folder.
+ *
+ * @param path - any path
+ * @returns an absolute path with every symbolic link of existing parts resolved
+ * @example
+ * await realTarget("rlink/indices.csv"); // rlink → region: "/abs/region/indices.csv"
+ */
+export async function realTarget(path: string): Promise<string> {
+  try {
+    return await realpath(path);
+  } catch {
+    try {
+      return join(await realpath(dirname(path)), basename(path));
+    } catch {
+      return resolve(path);
+    }
+  }
+}
+
+/**
+ * Plain-word problem with an output file name itself, before the file system is asked: an empty
+ * name, or a name that ends in a path separator (a folder).
+ *
+ * @param path - the target as typed
+ * @returns the reason, or null when the name is usable
+ */
+export function outputNameProblem(path: string): string | null {
+  if (path.trim() === "") return "no file name was given";
+  if (/[\\/]$/.test(path) || /(^|[\\/])\.{1,2}$/.test(path)) return "the name ends in a folder, not a file: add a file name";
+  return null;
+}
+
+/**
+ * Check, before any work is done, that a file could be written at each path: a usable name, no
+ * path named twice (after resolving against the working folder and every symbolic link, or as two
+ * names of one existing file), each folder exists, is a folder and is writable, and no target is
+ * a folder or any other file that is not a regular file (device node, named pipe, socket — these
+ * are never replaced). With `replace: false` an existing file is refused too.
  *
  * @param paths - target paths, relative to the process's working folder or absolute.
+ * @param options - whether an existing regular file may be replaced (default yes).
  * @returns when every target looks writable.
  * @throws OutputPathError naming the first target that cannot be written and why.
  * @example
  * await checkOutputTargets(["brief.pdf", "brief.html"]); // resolves
  * await checkOutputTargets(["brief.pdf", "./brief.pdf"]); // throws "cannot write ./brief.pdf: it is named twice"
+ * await checkOutputTargets(["/dev/null"]); // throws "cannot write /dev/null: it is not a regular file (…)"
  */
-export async function checkOutputTargets(paths: readonly string[]): Promise<void> {
+export async function checkOutputTargets(paths: readonly string[], options: OutputOptions = {}): Promise<void> {
   const seen = new Map<string, string>();
   for (const path of paths) {
-    const key = resolve(path);
-    const earlier = seen.get(key);
+    const problem = outputNameProblem(path);
+    if (problem !== null) throw new OutputPathError(path, problem);
+    const key = await realTarget(path);
+    const earlier = seen.get(resolve(path)) ?? seen.get(key);
     if (earlier !== undefined) {
       throw new OutputPathError(path, earlier === path ? "it is named twice" : `it is named twice (also as ${earlier})`);
     }
+    seen.set(resolve(path), path);
     seen.set(key, path);
   }
   const inodes = new Map<string, string>();
@@ -101,7 +165,11 @@ export async function checkOutputTargets(paths: readonly string[]): Promise<void
     try {
       folderStat = await stat(folder);
     } catch (error) {
-      throw new OutputPathError(path, errorCode(error) === "ENOENT" ? `the folder ${folder} does not exist` : reasonOf(error, path));
+      const code = errorCode(error);
+      throw new OutputPathError(
+        path,
+        code === "ENOENT" ? `the folder ${folder} does not exist` : code === "ENOTDIR" ? `${missingOrNotFolder(folder)}` : reasonOf(error, path),
+      );
     }
     if (!folderStat.isDirectory()) throw new OutputPathError(path, `${folder} is not a folder`);
     try {
@@ -109,19 +177,63 @@ export async function checkOutputTargets(paths: readonly string[]): Promise<void
     } catch {
       throw new OutputPathError(path, `no permission to write in the folder ${folder}`);
     }
+    // Ask the file system itself: some folders pass the checks above and still refuse new files
+    // (/proc, /sys, a read-only mount).
+    const probe = sidePath(path, "probe");
+    try {
+      const handle = await open(probe, "wx", 0o600);
+      await handle.close();
+      await unlink(probe).catch(() => undefined);
+    } catch (error) {
+      throw new OutputPathError(path, reasonOf(error, path));
+    }
     let targetStat;
     try {
       targetStat = await stat(path);
     } catch (error) {
-      if (errorCode(error) === "ENOENT") continue;
+      if (errorCode(error) === "ENOENT") {
+        // A dangling symbolic link: writing would replace the link, refuse to guess.
+        const link = await lstat(path).catch(() => null);
+        if (link !== null) throw new OutputPathError(path, "it is a symbolic link to a missing file");
+        continue;
+      }
       throw new OutputPathError(path, reasonOf(error, path));
     }
     if (targetStat.isDirectory()) throw new OutputPathError(path, "it is a folder");
+    if (!targetStat.isFile()) {
+      throw new OutputPathError(path, "it is not a regular file (a device, named pipe or socket), which is never replaced: choose another name");
+    }
+    if (options.replace === false) {
+      throw new OutputPathError(path, `it already exists${options.hint === undefined ? "" : `; ${options.hint}`}`);
+    }
     const inode = `${targetStat.dev}:${targetStat.ino}`;
     const other = inodes.get(inode);
     if (other !== undefined) throw new OutputPathError(path, `it is the same file as ${other}`);
     inodes.set(inode, path);
   }
+}
+
+/** Why a folder path fails with ENOTDIR: the first part of it that exists and is not a folder. */
+function missingOrNotFolder(folder: string): string {
+  let part = folder;
+  for (let step = 0; step < 64; step += 1) {
+    const parent = dirname(part);
+    try {
+      if (existsSync(parent) && !statSync(parent).isDirectory()) {
+        part = parent;
+        continue;
+      }
+    } catch {
+      // fall through to the message below
+    }
+    break;
+  }
+  try {
+    if (existsSync(part) && !statSync(part).isDirectory()) return `${part} is not a folder`;
+  } catch {
+    // fall through
+  }
+  return `${folder} is not a folder`;
 }
 
 function sidePath(path: string, suffix: string): string {
@@ -173,13 +285,16 @@ async function keepOld(path: string): Promise<string | null> {
  * file behind.
  *
  * @param files - paths (relative to the working folder or absolute) and contents.
+ * @param options - `replace: false` never replaces an existing file (a hard link puts each new
+ *   file in place, which fails atomically when the name exists); default true. A target that
+ *   exists and is not a regular file or a link (device, pipe, socket, folder) is never replaced.
  * @returns when every file is in place.
  * @throws OutputPathError `cannot write <path>: <reason>` naming the target (never a temporary
  *   name); the targets are as before and no temporary file remains.
  * @example
  * await writeFilesAtomic([{ path: "briefing.pdf", data: pdfBytes }, { path: "briefing.html", data: html }]);
  */
-export async function writeFilesAtomic(files: readonly FileToWrite[]): Promise<void> {
+export async function writeFilesAtomic(files: readonly FileToWrite[], options: OutputOptions = {}): Promise<void> {
   const written: { temporary: string; path: string }[] = [];
   const placed: { path: string; backup: string | null }[] = [];
   let current = files[0]?.path ?? "";
@@ -190,6 +305,28 @@ export async function writeFilesAtomic(files: readonly FileToWrite[]): Promise<v
     }
     for (const entry of written) {
       current = entry.path;
+      const existing = await lstat(entry.path).catch(() => null);
+      if (existing !== null && !existing.isFile() && !existing.isSymbolicLink()) {
+        throw new OutputPathError(entry.path, existing.isDirectory() ? "it is a folder" : "it is not a regular file (a device, named pipe or socket), which is never replaced: choose another name");
+      }
+      if (options.replace === false) {
+        // link() refuses an existing name atomically: nothing is ever replaced.
+        const exists = (): OutputPathError =>
+          new OutputPathError(entry.path, `it already exists${options.hint === undefined ? "" : `; ${options.hint}`}`);
+        try {
+          await link(entry.temporary, entry.path);
+          await unlink(entry.temporary).catch(() => undefined);
+        } catch (error) {
+          const code = errorCode(error);
+          if (code === "EEXIST") throw exists();
+          if (code !== "EPERM" && code !== "ENOTSUP" && code !== "EOPNOTSUPP") throw error;
+          // A file system without hard links: check, then rename (not atomic against a racing writer).
+          if ((await lstat(entry.path).catch(() => null)) !== null) throw exists();
+          await rename(entry.temporary, entry.path);
+        }
+        placed.push({ path: entry.path, backup: null });
+        continue;
+      }
       const backup = await keepOld(entry.path);
       try {
         await rename(entry.temporary, entry.path);
@@ -205,6 +342,7 @@ export async function writeFilesAtomic(files: readonly FileToWrite[]): Promise<v
       else await rename(entry.backup, entry.path).catch(() => undefined);
     }
     await Promise.all(written.map((entry) => unlink(entry.temporary).catch(() => undefined)));
+    if (error instanceof OutputPathError) throw error;
     throw new OutputPathError(current, reasonOf(error, current));
   }
   await Promise.all(placed.map((entry) => (entry.backup === null ? undefined : unlink(entry.backup).catch(() => undefined))));
