@@ -23,7 +23,10 @@ export interface LogisticRegressionFit {
   readonly pValue: number;
   /** Newton (or Firth-modified scoring) iterations of the returned fit. */
   readonly iterations: number;
-  /** True when both the largest step and the change in (penalized) log-likelihood fell below the tolerance. */
+  /**
+   * True when both the largest step and the change in (penalized) log-likelihood fell below the tolerance (for
+   * Firth: in the full fit and in the restricted null fit).
+   */
   readonly converged: boolean;
   /** True when the maximum-likelihood fit shows complete or quasi-complete separation. */
   readonly separation: boolean;
@@ -119,16 +122,20 @@ export function logisticRegression(
   const rankProblem = identifiabilityProblem(design, predictors);
   if (rankProblem !== null) return notIdentifiable(coefficientCount, rankProblem);
 
-  const maximumLikelihood = newtonFit(design, y, allFree(coefficientCount), false, tolerance, maxIterations);
-  const collapsed = maximumLikelihood.fitted.some(
+  const allEqual = y.every((value) => value === y[0]);
+  const separatedDirectly =
+    allEqual || (predictorCount === 1 && separatedOnOnePredictor(predictors.map((row) => row[0] ?? 0), y));
+  // No finite maximum-likelihood estimate exists when the direct check finds separation, so skip that fit.
+  const maximumLikelihood = separatedDirectly
+    ? null
+    : newtonFit(design, y, allFree(coefficientCount), false, tolerance, maxIterations);
+  const collapsed = (maximumLikelihood?.fitted ?? []).some(
     (probability) => probability < COLLAPSE_PROBABILITY || probability > 1 - COLLAPSE_PROBABILITY,
   );
   const separation =
-    predictorCount === 1
-      ? separatedOnOnePredictor(predictors.map((row) => row[0] ?? 0), y)
-      : y.every((value) => value === y[0]) || (!maximumLikelihood.converged && collapsed);
+    separatedDirectly || (predictorCount > 1 && maximumLikelihood !== null && !maximumLikelihood.converged && collapsed);
 
-  if (!options.firth && !separation && maximumLikelihood.converged) {
+  if (!options.firth && !separation && maximumLikelihood !== null && maximumLikelihood.converged) {
     const eventCount = y.reduce((sum, value) => sum + value, 0);
     const mean = eventCount / y.length;
     const nullLogLikelihood = eventCount * Math.log(mean) + (y.length - eventCount) * Math.log(1 - mean);
@@ -138,7 +145,8 @@ export function logisticRegression(
   const penalized = newtonFit(design, y, allFree(coefficientCount), true, tolerance, maxIterations);
   const interceptOnly = allFree(coefficientCount).map((_, index) => index === 0);
   const penalizedNull = newtonFit(design, y, interceptOnly, true, tolerance, maxIterations);
-  return assemble(penalized, penalizedNull.logLikelihood, predictorCount, separation, "Firth penalized likelihood");
+  const both = { ...penalized, converged: penalized.converged && penalizedNull.converged };
+  return assemble(both, penalizedNull.logLikelihood, predictorCount, separation, "Firth penalized likelihood");
 }
 
 interface NewtonResult {
