@@ -85,6 +85,13 @@ describe("isotonicRegression(x, y)", () => {
     expectAllClose(isotonicRegression([1, 2, 3, 4], [23, 27, 25, 28]), [23, 26, 26, 28], 14);
   });
 
+  it("isotonicRegression(0…6, [3, 7, 5, 9, 8, 7, 10]) → [3, 6, 6, 8, 8, 8, 10] and ([10, 0, 2]) → [4, 4, 4]", () => {
+    // Expected values printed in scikit-learn's own test suite (sklearn/tests/test_isotonic.py,
+    // test_isotonic_regression), a second implementation's reference output.
+    expectAllClose(isotonicRegression([0, 1, 2, 3, 4, 5, 6], [3, 7, 5, 9, 8, 7, 10]), [3, 6, 6, 8, 8, 8, 10], 14);
+    expectAllClose(isotonicRegression([0, 1, 2], [10, 0, 2]), [4, 4, 4], 14);
+  });
+
   it("isotonicRegression(1…9, [1, 0, 4, 3, 3, 5, 4, 2, 0]) → [0.5, 0.5, 3, 3, 3, 3, 3, 3, 3]", () => {
     // R Core Team, R stats package, help page of isoreg(), first example `isoreg(c(1,0,4,3,3,5,4,2,0))`,
     // whose printed fitted values yf are 0.5 0.5 3 3 3 3 3 3 3 (the printout from memory; recomputed by hand:
