@@ -25,6 +25,12 @@ import { trustSvg, type TrustedMarkup } from "./trustedMarkup.js";
 /** The words printed wherever a statistic is null. */
 export const NOT_ENOUGH_DATA = "not enough data";
 
+/**
+ * The header band's words, on every printed page (templates/briefing.css prints the same words in
+ * a page-margin box; the HTML shows them atop the document on screen).
+ */
+export const BAND_TEXT = "Statistical outlook from past records \u2014 not an official forecast or fire-danger rating";
+
 /** Everything {@link buildBriefingView} reads. */
 export interface BriefingInputs {
   readonly workspace: Workspace;
@@ -73,6 +79,8 @@ export interface LabelValue {
 /** The view model of the whole briefing (see templates/briefing.hbs). */
 export interface BriefingView {
   readonly documentTitle: string;
+  /** The header band: this is a statistical outlook, not an official forecast ({@link BAND_TEXT}). */
+  readonly bandText: string;
   /** Paper size, for paper-specific spacing in the style sheet (body class paper-a4 / paper-letter). */
   readonly paper: "a4" | "letter";
   readonly header: {
@@ -398,6 +406,7 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
           upper: phase.probability.upper,
           years: phase.years,
           smallSample: phase.smallSample,
+          isCurrent: current !== undefined && current.label === phase.label,
         })),
         baseRate: { estimate: calibration.baseRate.estimate, lower: calibration.baseRate.lower, upper: calibration.baseRate.upper },
       }),
@@ -598,6 +607,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
 
   return {
     documentTitle: `Fire-season outlook ${outlook.season}: ${outlook.region}`,
+    bandText: BAND_TEXT,
     paper: inputs.paper,
     header: {
       region: outlook.region,

@@ -7,6 +7,7 @@ import { fileURLToPath } from "node:url";
 import Handlebars from "handlebars";
 import type { BriefingView } from "./buildBriefingView.js";
 import { BRIEFING_FACES, embeddedFontCss, fontSubsetsFor } from "./embeddedFonts.js";
+import { paletteCss } from "./charts/palette.js";
 import { trustCss } from "./trustedMarkup.js";
 
 /** The templates folder shipped with the package (`templates/` beside `src/` and `dist/`). */
@@ -36,7 +37,9 @@ function compileTemplates(folder: string): CompiledBriefing {
 }
 
 /**
- * The briefing's complete style sheet: embedded Source Sans 3 faces, then templates/briefing.css.
+ * The briefing's complete style sheet: embedded Source Sans 3 faces, the palette as CSS custom
+ * properties (`--fp-<role>`, so the page and the charts share one colour map), then
+ * templates/briefing.css.
  *
  * @param templatesDir - folder holding briefing.css (default {@link TEMPLATES_DIR}).
  * @param subsets - font subsets to embed (default latin and latin-ext).
@@ -49,7 +52,7 @@ export function briefingStyleSheet(
   templatesDir: string = TEMPLATES_DIR,
   subsets: readonly ("latin" | "latin-ext")[] = ["latin", "latin-ext"],
 ): string {
-  return `${embeddedFontCss(BRIEFING_FACES, subsets)}\n${readFileSync(join(templatesDir, "briefing.css"), "utf8")}`;
+  return `${embeddedFontCss(BRIEFING_FACES, subsets)}\n${paletteCss()}${readFileSync(join(templatesDir, "briefing.css"), "utf8")}`;
 }
 
 /**

@@ -49,7 +49,8 @@ const averageMarker = symbol(symbolDiamond, 70);
 
 /**
  * Category odds bars: the chance of a below-, near- and above-normal fire year this season as
- * three bars (blue, grey, amber) with interval whiskers and, on each bar, a hollow diamond at the
+ * three bars (pale aqua, mid teal, deep teal: one hue, darker for more fire) with interval whiskers
+ * and, on each bar, an average-year (khaki) diamond at the
  * category's average-year share labelled with that share ("49%"); a legend over the plot names
  * the two ("This season, 95% interval", "Average year"). Under each category name the estimate
  * is printed in bold and its interval below it, in whole percent ("53%", "(40–66%)").
@@ -101,9 +102,12 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
       if (isDrawable(value.lower) && isDrawable(value.upper)) {
         const yl = y(value.lower);
         const yu = y(value.upper);
-        body += `<line${attrs({ x1: middle, x2: middle, y1: yl, y2: yu, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
-        for (const end of [yl, yu]) {
-          body += `<line${attrs({ x1: middle - 6, x2: middle + 6, y1: end, y2: end, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
+        // A white casing under the ink whisker keeps it legible on the darkest bar.
+        for (const [stroke, width] of [[palette.paper, 3.5], [palette.ink, 1.5]] as const) {
+          body += `<line${attrs({ x1: middle, x2: middle, y1: yl, y2: yu, stroke, "stroke-width": width })}/>`;
+          for (const end of [yl, yu]) {
+            body += `<line${attrs({ x1: middle - 6, x2: middle + 6, y1: end, y2: end, stroke, "stroke-width": width })}/>`;
+          }
         }
       }
       body += svgText(middle, frame.bottom + 33, formatPercent(value.estimate), {
@@ -120,7 +124,7 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
     const average = input.averageYear[category.key];
     if (isDrawable(average)) {
       const ay = y(Math.min(1, Math.max(0, average)));
-      body += `<path${attrs({ class: "average-year", d: diamond, transform: `translate(${coord(middle)} ${coord(ay)})`, fill: "#ffffff", stroke: palette.ink, "stroke-width": 1.6 })}/>`;
+      body += `<path${attrs({ class: "average-year", d: diamond, transform: `translate(${coord(middle)} ${coord(ay)})`, fill: palette.baseRate, stroke: palette.paper, "stroke-width": 1.4 })}/>`;
       body += svgTextOnPanel(start + x.bandwidth() + 4, ay + 4, formatPercent(average), {
         "font-size": SMALL_SIZE,
         fill: palette.ink,
@@ -131,11 +135,11 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
   const entries: LegendEntry[] = [
     {
       symbol:
-        `<rect${attrs({ x: -6, y: -5, width: 12, height: 10, fill: "#ffffff", stroke: palette.inkMuted, "stroke-width": 0.8 })}/>` +
+        `<rect${attrs({ x: -6, y: -5, width: 12, height: 10, fill: palette.paper, stroke: palette.inkMuted, "stroke-width": 0.8 })}/>` +
         `<line${attrs({ x1: 0, x2: 0, y1: -7, y2: 7, stroke: palette.ink, "stroke-width": 1.5 })}/>`,
       label: "This season, 95% interval",
     },
-    { symbol: `<path${attrs({ d: diamond, fill: "#ffffff", stroke: palette.ink, "stroke-width": 1.6 })}/>`, label: "Average year" },
+    { symbol: `<path${attrs({ d: diamond, fill: palette.baseRate, stroke: palette.paper, "stroke-width": 1.4 })}/>`, label: "Average year" },
   ];
   body += legend(entries, frame, 12);
   return `${svgOpen(frame, "Chance of a below-, near- or above-normal fire year, this season and in an average year")}${body}</svg>`;

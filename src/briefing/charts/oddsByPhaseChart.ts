@@ -1,5 +1,5 @@
 import { scaleBand, scaleLinear } from "d3-scale";
-import { palette } from "./palette.js";
+import { palette, phaseColour } from "./palette.js";
 import {
   attrs,
   axisBottom,
@@ -35,6 +35,8 @@ export interface OddsByPhaseRow extends ChartInterval {
   readonly years: number;
   /** True when the phase has few years: drawn hollow, with a legend note. */
   readonly smallSample: boolean;
+  /** True for this season's phase: ringed in the this-season colour and labelled "this season". */
+  readonly isCurrent?: boolean;
 }
 
 /** Input of {@link oddsByPhaseChart}. */
@@ -52,7 +54,9 @@ const MARGINS = { top: 14, right: 150, bottom: 64, left: 112 };
 /**
  * Conditional odds by phase chart: the chance of a fire year in each phase of one climate index,
  * a dot at the estimate and a line across its 95% interval, against the base rate (all years; legend "Average year (10%)")
- * drawn as a vertical line inside its shaded interval.
+ * drawn as a vertical line inside its shaded interval. Each dot takes the colour of its phase's
+ * position (first, middle, last: {@link phaseColour}, the same on every page); this season's
+ * phase is ringed in the this-season colour.
  *
  * Layout: one row per phase; x axis "Chance of a high-fire year" from 0% to 100% (ticks every 10%);
  * the right column reads "42% (28–57%) · 23 yr" — whole percent, fixed format. A phase flagged
@@ -79,18 +83,24 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
   const base = input.baseRate;
   const entries: LegendEntry[] = [
     {
-      symbol: `<line${attrs({ x1: -7, x2: 7, y1: 0, y2: 0, stroke: palette.estimate, "stroke-width": 2.5 })}/><circle${attrs({ r: 4.5, fill: palette.estimate })}/>`,
-      label: "Chance in phase, 95% interval",
+      symbol: `<line${attrs({ x1: -7, x2: 7, y1: 0, y2: 0, stroke: palette.ink, "stroke-width": 1.5 })}/><circle${attrs({ r: 4.5, fill: phaseColour(1, 3), stroke: palette.ink, "stroke-width": 1 })}/>`,
+      label: "Chance in phase, 95% interval (dot colour: phase position)",
     },
     {
-      symbol: `<rect${attrs({ x: -7, y: -6, width: 14, height: 12, fill: palette.baseRate, "fill-opacity": 0.14 })}/><line${attrs({ x1: 0, x2: 0, y1: -6, y2: 6, stroke: palette.baseRate, "stroke-width": 2, "stroke-dasharray": "3 2" })}/>`,
+      symbol: `<rect${attrs({ x: -7, y: -6, width: 14, height: 12, fill: palette.baseRateTint })}/><line${attrs({ x1: 0, x2: 0, y1: -6, y2: 6, stroke: palette.baseRate, "stroke-width": 2, "stroke-dasharray": "3 2" })}/>`,
       label: isDrawable(base.estimate) ? `Average year (${formatPercent(base.estimate)})` : "Average year: not enough data",
     },
   ];
   if (input.phases.some((row) => row.smallSample && isDrawable(row.estimate))) {
     entries.push({
-      symbol: `<circle${attrs({ r: 4.5, fill: "#ffffff", stroke: palette.estimate, "stroke-width": 2 })}/>`,
+      symbol: `<circle${attrs({ r: 4.5, fill: palette.paper, stroke: palette.ink, "stroke-width": 1.5 })}/>`,
       label: "Hollow: few years",
+    });
+  }
+  if (input.phases.some((row) => row.isCurrent === true && isDrawable(row.estimate))) {
+    entries.push({
+      symbol: `<circle${attrs({ r: 6.5, fill: "none", stroke: palette.current, "stroke-width": 2.5 })}/>`,
+      label: "This season's phase",
     });
   }
   const defaultHeight = Math.max(180, MARGINS.top + 26 + 34 * Math.max(rows.length, 2) + MARGINS.bottom) +
@@ -120,7 +130,7 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
   if (isDrawable(base.lower) && isDrawable(base.upper)) {
     const x0 = x(Math.min(base.lower, base.upper));
     const x1 = x(Math.max(base.lower, base.upper));
-    body += `<rect${attrs({ x: x0, y: plotTop, width: Math.max(x1 - x0, 0.5), height: frame.bottom - plotTop, fill: palette.baseRate, "fill-opacity": 0.14 })}/>`;
+    body += `<rect${attrs({ x: x0, y: plotTop, width: Math.max(x1 - x0, 0.5), height: frame.bottom - plotTop, fill: palette.baseRateTint })}/>`;
   }
   if (isDrawable(base.estimate)) {
     const xb = x(base.estimate);
@@ -129,6 +139,7 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
 
   const drawable = rows.filter((row) => isDrawable(row.estimate));
   rows.forEach((row, index) => {
+    const colour = phaseColour(index, rows.length);
     const top = y(String(index));
     if (top === undefined) return;
     const cy = top + y.bandwidth() / 2;
@@ -139,18 +150,22 @@ export function oddsByPhaseChart(input: Readonly<OddsByPhaseChartInput>, options
       return;
     }
     if (isDrawable(row.lower) && isDrawable(row.upper)) {
-      body += `<line${attrs({ x1: x(row.lower), x2: x(row.upper), y1: cy, y2: cy, stroke: palette.estimate, "stroke-width": 2.5, "stroke-linecap": "round" })}/>`;
+      body += `<line${attrs({ x1: x(row.lower), x2: x(row.upper), y1: cy, y2: cy, stroke: palette.ink, "stroke-width": 1.5, "stroke-linecap": "round" })}/>`;
       for (const end of [row.lower, row.upper]) {
-        body += `<line${attrs({ x1: x(end), x2: x(end), y1: cy - 5, y2: cy + 5, stroke: palette.estimate, "stroke-width": 1.5 })}/>`;
+        body += `<line${attrs({ x1: x(end), x2: x(end), y1: cy - 5, y2: cy + 5, stroke: palette.ink, "stroke-width": 1.5 })}/>`;
       }
     }
+    if (row.isCurrent === true) {
+      body += `<circle${attrs({ class: "this-season", cx: x(row.estimate), cy, r: 9, fill: "none", stroke: palette.current, "stroke-width": 2.5 })}/>`;
+    }
     body += `<circle${attrs({
+      class: "phase-estimate",
       cx: x(row.estimate),
       cy,
       r: 5.5,
-      fill: row.smallSample ? "#ffffff" : palette.estimate,
-      stroke: palette.estimate,
-      "stroke-width": 2,
+      fill: row.smallSample ? palette.paper : colour,
+      stroke: row.smallSample ? colour : palette.ink,
+      "stroke-width": row.smallSample ? 2.5 : 1,
     })}/>`;
     const interval =
       isDrawable(row.lower) && isDrawable(row.upper)

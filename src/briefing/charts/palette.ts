@@ -1,12 +1,22 @@
 /**
- * The colour palette of the briefing charts: firephase's own choice of inks, checked to stay
- * distinct for readers with a colour-vision deficiency.
+ * The one colour map of the briefing: every colour that a chart or the page prints comes from
+ * here, and each colour means one thing on every page.
  *
- * Hues: a deep blue (estimates), a teal (base rate, 95% limits), an orange-amber (fire years),
- * purples (the current season, 99% limits), and neutral greys. The below / near / above normal
- * trio diverges from blue through grey to amber. Every pair of colours that one chart shows
- * together (listed in {@link coloursUsedTogether}) is at least {@link minimumDeltaE} CIE76 ΔE*ab
- * apart for normal vision and under simulated protanopia, deuteranopia and tritanopia
+ * Meanings and inks (firephase's own choice):
+ * - a high-fire year: ember brick; an average year (the base rate): khaki; this season: violet;
+ * - the phases of an index by position, whatever their names: first phase pale blue, middle
+ *   phase mid blue, last phase deep navy (an ordinal ramp: lighter to darker);
+ * - the activity categories: below normal pale aqua, near normal mid teal, above normal deep
+ *   teal (an ordinal ramp in one hue, so "more fire" reads as "darker", never as a danger ladder);
+ * - statistics themselves (means, fitted curves, scores) in near-black ink; what chance alone
+ *   gives as a light stone envelope; other years grey; years outside the calibration period a
+ *   lighter grey.
+ *
+ * No official outlook's category colours are used: no blue/grey/orange or blue/white/red trio
+ * for below/near/above, and no green–yellow–red danger ladder anywhere. Every pair of colours
+ * that one chart shows together (listed in {@link coloursUsedTogether}) is at least
+ * {@link minimumDeltaE} CIE76 ΔE*ab apart for normal vision and under simulated protanopia,
+ * deuteranopia and tritanopia, and every two meanings differ for normal vision
  * (test/briefing/charts/palette.test.ts). Charts also vary marker shape and dash pattern, so no
  * reading depends on hue alone.
  *
@@ -19,93 +29,146 @@
 /** A colour as a six-digit lower-case hex string, `#rrggbb`. */
 export type HexColour = `#${string}`;
 
-/** Named colour roles of the briefing charts. */
+/** Named colour roles of the briefing (charts and page). */
 export interface ChartPalette {
-  /** Point estimates (dots, bars of means, the ROC curve): deep blue. */
-  readonly estimate: HexColour;
-  /** Interval bands and bars that are not beyond their limits: pale blue. */
-  readonly interval: HexColour;
-  /** 95% confidence limits (superposed epoch analysis): teal. */
-  readonly limit95: HexColour;
-  /** 99% confidence limits (superposed epoch analysis): light purple. */
-  readonly limit99: HexColour;
-  /** Fire years (bars, markers): orange-amber. */
+  /** A high-fire year (marks, dots, the lag-0 column): ember brick. */
   readonly fireYear: HexColour;
-  /** Years that are not fire years: mid grey. */
+  /** Light tint of the high-fire-year colour (backgrounds only). */
+  readonly fireYearTint: HexColour;
+  /** Calibration years that are not high-fire years: mid grey. */
   readonly otherYear: HexColour;
-  /** Years outside the calibration period (not used to choose fire years): light grey. */
+  /** Years outside the calibration period (not used to choose high-fire years): light grey. */
   readonly outsideYear: HexColour;
-  /** The current season's marker: purple. */
-  readonly current: HexColour;
-  /** The base rate (climatology) line and band: teal. */
+  /** An average year (the base rate, climatology): khaki. */
   readonly baseRate: HexColour;
-  /** Sample depth (sites recording): deep blue line on the second axis. */
-  readonly sampleDepth: HexColour;
-  /** Below-normal category: blue. */
+  /** Light tint of the average-year colour (its interval band). */
+  readonly baseRateTint: HexColour;
+  /** This season: violet. */
+  readonly current: HexColour;
+  /** Light tint of this season's colour (table rows, backgrounds). */
+  readonly currentTint: HexColour;
+  /** The first phase of an index (lowest values): pale blue. */
+  readonly phaseFirst: HexColour;
+  /** A middle phase of an index: mid blue. */
+  readonly phaseMiddle: HexColour;
+  /** The last phase of an index (highest values): deep navy. */
+  readonly phaseLast: HexColour;
+  /** Below-normal fire activity: pale aqua. */
   readonly below: HexColour;
-  /** Near-normal category: light grey. */
+  /** Near-normal fire activity: mid teal. */
   readonly near: HexColour;
-  /** Above-normal category: orange-amber. */
+  /** Above-normal fire activity: deep teal. */
   readonly above: HexColour;
+  /** A statistic (mean, fitted curve, score curve, estimate dot): near-black ink. */
+  readonly estimate: HexColour;
+  /** The uncertainty band of an estimate: light grey. */
+  readonly interval: HexColour;
+  /** What chance alone gives (95% envelope, consistency band): light stone. */
+  readonly chance: HexColour;
+  /** The wider chance envelope (99%): paler stone. */
+  readonly chanceOuter: HexColour;
+  /** Sample depth (sites recording), drawn as a light area: pale slate. */
+  readonly sampleDepth: HexColour;
   /** Text, axes, reference lines: near black. */
   readonly ink: HexColour;
   /** Secondary text and tick labels: dark grey. */
   readonly inkMuted: HexColour;
-  /** Grid lines: very light grey. */
+  /** Grid lines, phase cuts drawn lightly: very light grey. */
   readonly grid: HexColour;
-  /** Background shading of a period (the calibration years): very light blue-grey. */
+  /** Background shading of a period (the calibration years): very light cool grey. */
   readonly shade: HexColour;
-  /** Colours of several lines in one chart (phases across moving windows), in order. */
-  readonly series: readonly [HexColour, HexColour, HexColour, HexColour];
+  /** The page and marker outlines: white. */
+  readonly paper: HexColour;
+  /** Headings and the masthead rule: dark slate. */
+  readonly heading: HexColour;
+  /** Table rules and box borders: light grey. */
+  readonly rule: HexColour;
+  /** Background of boxes on the page: very light grey. */
+  readonly panel: HexColour;
+  /** The header band that says the briefing is not an official forecast: dark slate ground. */
+  readonly band: HexColour;
 }
 
 /**
- * The chart palette (colour roles to hex colours).
+ * The palette (colour roles to hex colours).
  *
  * @example
- * palette.fireYear; // => "#d9822b"
+ * palette.fireYear; // => "#b2401f"
  * @see Machado, Oliveira & Fernandes (2009), IEEE TVCG 15(6):1291–1298 (simulation used to check it).
  */
 export const palette: ChartPalette = Object.freeze({
-  estimate: "#1d4e89",
-  interval: "#a9c4e4",
-  limit95: "#168a7a",
-  limit99: "#a772cf",
-  fireYear: "#d9822b",
-  otherYear: "#9e9e9e",
-  outsideYear: "#d6d6d6",
-  current: "#8e44ad",
-  baseRate: "#168a7a",
-  sampleDepth: "#1d4e89",
-  below: "#2f6db5",
-  near: "#c4c4c4",
-  above: "#d9822b",
-  ink: "#262626",
-  inkMuted: "#5f5f5f",
-  grid: "#e2e2e2",
-  shade: "#e9eef5",
-  series: Object.freeze(["#1d4e89", "#d9822b", "#4fb8a5", "#a772cf"] as const),
+  fireYear: "#b2401f",
+  fireYearTint: "#f6e3dc",
+  otherYear: "#9a9fa5",
+  outsideYear: "#dcdfe2",
+  baseRate: "#8c7a2a",
+  baseRateTint: "#eee8cf",
+  current: "#7b2f9e",
+  currentTint: "#efe4f4",
+  phaseFirst: "#94bde3",
+  phaseMiddle: "#4f86c6",
+  phaseLast: "#1d3f73",
+  below: "#92c9c1",
+  near: "#46918a",
+  above: "#1a5a55",
+  estimate: "#1f2226",
+  interval: "#c9cdd2",
+  chance: "#dedbd1",
+  chanceOuter: "#efede7",
+  sampleDepth: "#c5d0db",
+  ink: "#1f2226",
+  inkMuted: "#5c6168",
+  grid: "#e4e6e9",
+  shade: "#f0f2f4",
+  paper: "#ffffff",
+  heading: "#2d3a4a",
+  rule: "#d5d9de",
+  panel: "#f4f5f7",
+  band: "#2d3a4a",
 });
 
-/** A colour role of {@link palette}, or an entry of its `series` as `series0` … `series3`. */
-export type PaletteRole = Exclude<keyof ChartPalette, "series"> | "series0" | "series1" | "series2" | "series3";
+/** A colour role of {@link palette}. */
+export type PaletteRole = keyof ChartPalette;
+
+/**
+ * What each meaning colour stands for, in the words of the briefing (the legend of the colour map).
+ *
+ * @example
+ * COLOUR_MEANINGS.find((entry) => entry.role === "baseRate")?.meaning; // => "an average year (base rate)"
+ */
+export const COLOUR_MEANINGS: readonly { readonly role: PaletteRole; readonly meaning: string }[] = Object.freeze([
+  { role: "fireYear", meaning: "a high-fire year" },
+  { role: "baseRate", meaning: "an average year (base rate)" },
+  { role: "current", meaning: "this season" },
+  { role: "phaseFirst", meaning: "the first phase of an index" },
+  { role: "phaseMiddle", meaning: "the middle phase of an index" },
+  { role: "phaseLast", meaning: "the last phase of an index" },
+  { role: "below", meaning: "below-normal fire activity" },
+  { role: "near", meaning: "near-normal fire activity" },
+  { role: "above", meaning: "above-normal fire activity" },
+  { role: "estimate", meaning: "a statistic (mean, fitted curve)" },
+  { role: "chance", meaning: "what chance alone gives" },
+  { role: "otherYear", meaning: "other calibration years" },
+]);
 
 /**
  * The sets of colour roles that appear together in one chart, keyed by chart function name:
  * within each set every pair must stay distinguishable.
  *
  * @example
- * coloursUsedTogether.categoryOddsBar; // => ["below", "near", "above", "ink"]
+ * coloursUsedTogether.categoryOddsBar; // => ["below", "near", "above", "baseRate", "ink"]
  */
 export const coloursUsedTogether: Readonly<Record<string, readonly PaletteRole[]>> = Object.freeze({
-  oddsByPhaseChart: ["estimate", "interval", "baseRate", "ink"],
-  seaChart: ["estimate", "interval", "limit95", "limit99", "ink"],
+  oddsByPhaseChart: ["phaseFirst", "phaseMiddle", "phaseLast", "baseRate", "ink"],
+  seaChart: ["estimate", "chance", "fireYear"],
   phaseSpaceScatter: ["otherYear", "fireYear", "current", "ink"],
-  activityTimeline: ["otherYear", "outsideYear", "fireYear", "sampleDepth", "ink"],
-  reliabilityDiagram: ["estimate", "baseRate", "ink"],
-  rocCurveChart: ["estimate", "ink"],
-  stabilityChart: ["series0", "series1", "series2", "series3", "inkMuted"],
-  categoryOddsBar: ["below", "near", "above", "ink"],
+  activityTimeline: ["otherYear", "outsideYear", "fireYear", "ink"],
+  reliabilityDiagram: ["estimate", "chance", "baseRate"],
+  rocCurveChart: ["estimate", "inkMuted"],
+  stabilityChart: ["phaseFirst", "phaseMiddle", "phaseLast", "baseRate"],
+  categoryOddsBar: ["below", "near", "above", "baseRate", "ink"],
+  responseCurveChart: ["estimate", "fireYear", "otherYear", "current"],
+  eraOddsChart: ["phaseFirst", "phaseMiddle", "phaseLast", "baseRate", "ink"],
 });
 
 /**
@@ -125,24 +188,61 @@ export const minimumDeltaE = 20;
 /**
  * The colour of a palette role by name.
  *
- * @param role - a role of {@link palette} or `series0` … `series3`.
+ * @param role - a role of {@link palette}.
  * @returns its hex colour.
  * @throws never: every {@link PaletteRole} has a colour.
  * @example
- * paletteColour("series1"); // => "#d9822b"
- * @see Machado, Oliveira & Fernandes (2009), IEEE TVCG 15(6):1291–1298.
+ * paletteColour("current"); // => "#7b2f9e"
  */
 export function paletteColour(role: PaletteRole): HexColour {
-  switch (role) {
-    case "series0":
-      return palette.series[0];
-    case "series1":
-      return palette.series[1];
-    case "series2":
-      return palette.series[2];
-    case "series3":
-      return palette.series[3];
-    default:
-      return palette[role];
-  }
+  return palette[role];
+}
+
+/**
+ * The ordinal position of a phase among an index's phases: first, middle or last (every phase
+ * between the first and the last is a middle phase; charts tell several middle phases apart by
+ * marker and dash, not by colour).
+ *
+ * @param index - 0-based position of the phase (0 … count − 1; out-of-range values are clamped).
+ * @param count - number of phases of the index (≥ 1).
+ * @returns the palette role of that position; a single phase is "phaseMiddle".
+ * @throws never.
+ * @example
+ * phaseRole(2, 3); // => "phaseLast"
+ */
+export function phaseRole(index: number, count: number): "phaseFirst" | "phaseMiddle" | "phaseLast" {
+  const total = Number.isFinite(count) ? Math.max(1, Math.floor(count)) : 1;
+  const position = Number.isFinite(index) ? Math.min(total - 1, Math.max(0, Math.floor(index))) : 0;
+  if (total === 1) return "phaseMiddle";
+  if (position === 0) return "phaseFirst";
+  if (position === total - 1) return "phaseLast";
+  return "phaseMiddle";
+}
+
+/**
+ * The colour of a phase by its position (see {@link phaseRole}): the same on every page.
+ *
+ * @param index - 0-based position of the phase.
+ * @param count - number of phases of the index.
+ * @returns its hex colour.
+ * @throws never.
+ * @example
+ * phaseColour(0, 3); // => "#94bde3"
+ */
+export function phaseColour(index: number, count: number): HexColour {
+  return palette[phaseRole(index, count)];
+}
+
+/**
+ * The palette as CSS custom properties (`--fp-<role>`), so the page's style sheet prints the same
+ * colours as the charts and holds no colour of its own.
+ *
+ * @returns a `:root { … }` rule.
+ * @throws never.
+ * @example
+ * paletteCss().startsWith(":root {"); // => true
+ */
+export function paletteCss(): string {
+  const lines = (Object.keys(palette) as PaletteRole[]).map((role) => `  --fp-${role}: ${palette[role]};`);
+  return `:root {\n${lines.join("\n")}\n}\n`;
 }

@@ -182,7 +182,7 @@ export function phaseSpaceScatter(input: Readonly<PhaseSpaceScatterInput>, optio
   if (current) {
     const cx = x(current.x);
     const cy = y(current.y);
-    body += `<path${attrs({ d: diamond() ?? "", transform: `translate(${coord(cx)} ${coord(cy)})`, fill: palette.current, stroke: "#ffffff", "stroke-width": 2 })}/>`;
+    body += `<path${attrs({ d: diamond() ?? "", transform: `translate(${coord(cx)} ${coord(cy)})`, fill: palette.current, stroke: palette.paper, "stroke-width": 2 })}/>`;
     const cutXs = input.xCuts.filter(isDrawable).map((cut) => x(cut));
     const cutYs = input.yCuts.filter(isDrawable).map((cut) => y(cut));
     const spot = labelSpot({ x: cx, y: cy }, frame, points.map((point) => ({ x: x(point.x), y: y(point.y) })), cutXs, cutYs);

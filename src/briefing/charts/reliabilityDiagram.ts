@@ -104,7 +104,7 @@ export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, opt
     const cx = x(bin.meanForecast);
     const cy = y(bin.observedFrequency);
     const r = Math.max(2.5, radius(bin.count));
-    body += `<circle${attrs({ cx, cy, r, fill: palette.estimate, "fill-opacity": 0.85, stroke: "#ffffff", "stroke-width": 1 })}/>`;
+    body += `<circle${attrs({ cx, cy, r, fill: palette.estimate, "fill-opacity": 0.85, stroke: palette.paper, "stroke-width": 1 })}/>`;
   }
   if (bins.length > 0) {
     body += svgText(frame.left, frame.top - 24, "Years per bin", { "font-size": COUNT_SIZE, fill: palette.inkMuted });

@@ -92,7 +92,7 @@ export function rocCurveChart(input: Readonly<RocCurveChartInput>, options?: Cha
       .y((point) => y(point.hitRate))(curve);
     if (path) body += `<path${attrs({ d: path, fill: "none", stroke: palette.estimate, "stroke-width": 2 })}/>`;
     for (const point of given) {
-      body += `<circle${attrs({ cx: x(point.falseAlarmRate), cy: y(point.hitRate), r: 3, fill: palette.estimate, stroke: "#ffffff", "stroke-width": 1 })}/>`;
+      body += `<circle${attrs({ cx: x(point.falseAlarmRate), cy: y(point.hitRate), r: 3, fill: palette.estimate, stroke: palette.paper, "stroke-width": 1 })}/>`;
     }
   }
   const areaText = isDrawable(input.area) ? `Area ${input.area.toFixed(2)}` : "Area: not enough data";

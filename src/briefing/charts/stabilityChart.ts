@@ -1,7 +1,7 @@
 import { scaleLinear } from "d3-scale";
 import { area, line, symbol, symbolCircle, symbolDiamond, symbolSquare, symbolTriangle, type SymbolType } from "d3-shape";
 import type { ChartInterval } from "./oddsByPhaseChart.js";
-import { palette } from "./palette.js";
+import { palette, phaseColour } from "./palette.js";
 import {
   attrs,
   axisBottom,
@@ -40,7 +40,6 @@ export interface StabilityChartInput {
 
 const MARGINS = { top: 12, right: 16, bottom: 64, left: 60 };
 const MARKERS: readonly SymbolType[] = [symbolCircle, symbolTriangle, symbolSquare, symbolDiamond];
-const DASHES: readonly (string | undefined)[] = [undefined, "7 3", "2 2", "9 3 2 3"];
 
 /**
  * Stability of the phase odds through time: for each phase, the chance of a fire year in moving
@@ -50,8 +49,9 @@ const DASHES: readonly (string | undefined)[] = [undefined, "7 3", "2 2", "9 3 2
  *
  * The y axis runs 0–100% (whole-percent ticks); x ticks are integer years. A window where a phase
  * has a null estimate breaks that phase's line; null limits break its band. With no drawable
- * estimate the plot shows "not enough data" over the axes. More than four phases reuse the four
- * series colours with a different dash pattern.
+ * estimate the plot shows "not enough data" over the axes. Phase colours follow their position
+ * (first, middle, last: {@link phaseColour}, the same on every page); a second or later middle
+ * phase is dotted. The average year is drawn in its own colour, dashed.
  *
  * @param input - windows, phase labels and base rate.
  * @param options - viewBox width (default 680) and height (default 260).
@@ -67,21 +67,23 @@ const DASHES: readonly (string | undefined)[] = [undefined, "7 3", "2 2", "9 3 2
 export function stabilityChart(input: Readonly<StabilityChartInput>, options?: ChartOptions): string {
   const styles = input.labels.map((label, index) => ({
     label,
-    colour: palette.series[index % palette.series.length] ?? palette.estimate,
+    colour: phaseColour(index, input.labels.length),
     marker: symbol(MARKERS[index % MARKERS.length] ?? symbolCircle, 36)() ?? "",
-    dash: DASHES[Math.floor(index / palette.series.length) % DASHES.length],
+    // Every phase between the first and the last shares the middle-phase colour; the second and
+    // later middle phases are dotted so they stay apart.
+    dash: index >= 2 && index < input.labels.length - 1 ? "2 2" : undefined,
   }));
   const entries: LegendEntry[] = styles.map((style) => ({
     symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: style.colour, "stroke-width": 2, "stroke-dasharray": style.dash })}/><path${attrs({ d: style.marker, fill: style.colour })}/>`,
     label: style.label,
   }));
   entries.push({
-    symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`,
+    symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.baseRate, "stroke-width": 1.8, "stroke-dasharray": "6 4" })}/>`,
     label: isDrawable(input.baseRate) ? `Average year (${formatPercent(input.baseRate)})` : "Average year: not enough data",
   });
   entries.push({
-    symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.series[0], "fill-opacity": 0.12 })}/>`,
-    label: "95% interval",
+    symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.interval, "fill-opacity": 0.5 })}/>`,
+    label: "95% interval (each phase, its own colour, pale)",
   });
   const frame = makeFrame(options, { width: 680, height: 260 }, (width) => ({
     ...MARGINS,
@@ -102,7 +104,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
   let body = axisBottom(x, frame, { title: "Middle year of window", ticks: windows.length > 0 ? 8 : 0, format: "d", integer: true });
   body += axisVertical(y, frame, { title: "Chance of a high-fire year", ticks: 5, format: ".0%", grid: true });
   if (isDrawable(input.baseRate)) {
-    body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(input.baseRate), y2: y(input.baseRate), stroke: palette.inkMuted, "stroke-width": 1.5, "stroke-dasharray": "6 4" })}/>`;
+    body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(input.baseRate), y2: y(input.baseRate), stroke: palette.baseRate, "stroke-width": 1.8, "stroke-dasharray": "6 4" })}/>`;
   }
 
   type Point = { middle: number; estimate: number | null; lower: number | null; upper: number | null };
@@ -125,7 +127,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
       .x((point) => x(point.middle))
       .y0((point) => y(point.lower ?? 0))
       .y1((point) => y(point.upper ?? 0))(points);
-    if (band) body += `<path${attrs({ d: band, fill: colour, "fill-opacity": 0.1 })}/>`;
+    if (band) body += `<path${attrs({ d: band, fill: colour, "fill-opacity": 0.14 })}/>`;
   }
   for (const { colour, marker, dash, points } of series) {
     const path = line<Point>()
@@ -136,7 +138,7 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
     for (const point of points) {
       if (point.estimate === null) continue;
       drawn += 1;
-      body += `<path${attrs({ d: marker, transform: `translate(${coord(x(point.middle))} ${coord(y(point.estimate))})`, fill: colour, stroke: "#ffffff", "stroke-width": 0.8 })}/>`;
+      body += `<path${attrs({ d: marker, transform: `translate(${coord(x(point.middle))} ${coord(y(point.estimate))})`, fill: colour, stroke: palette.paper, "stroke-width": 0.8 })}/>`;
     }
   }
   if (drawn === 0) body += notEnoughData(frame);

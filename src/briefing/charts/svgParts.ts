@@ -215,7 +215,7 @@ export function svgTextOnPanel(
   const width = estimateTextWidth(content, size) * (bold ? 1.1 : 1) + 2 * padding;
   const anchor = extra["text-anchor"] ?? "start";
   const left = anchor === "middle" ? x - width / 2 : anchor === "end" ? x - width + padding : x - padding;
-  const panel = `<rect${attrs({ class: "label-panel", x: left, y: y - size * 0.8 - padding / 2, width, height: size * 1.05 + padding, fill: "#ffffff", "fill-opacity": 0.9 })}/>`;
+  const panel = `<rect${attrs({ class: "label-panel", x: left, y: y - size * 0.8 - padding / 2, width, height: size * 1.05 + padding, fill: palette.paper, "fill-opacity": 0.9 })}/>`;
   return panel + svgText(x, y, content, extra);
 }
 
@@ -243,7 +243,7 @@ export function svgOpen(frame: Frame, label: string): string {
       fill: palette.ink,
     }) +
     `><title>${escapeXml(label)}</title>` +
-    `<rect${attrs({ x: 0, y: 0, width: frame.width, height: frame.height, fill: "#ffffff" })}/>`
+    `<rect${attrs({ x: 0, y: 0, width: frame.width, height: frame.height, fill: palette.paper })}/>`
   );
 }
 

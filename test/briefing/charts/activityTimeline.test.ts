@@ -16,44 +16,48 @@ const input: ActivityTimelineInput = Object.freeze({
 });
 
 describe("activityTimeline", () => {
-  it("activityTimeline(input) labels both axes, the calibration period and the threshold", () => {
+  it("activityTimeline(input) labels the axes, the calibration period, the threshold and the sample-depth strip", () => {
     const text = chartText(checkChartSvg(activityTimeline(input)));
-    for (const label of ["Share of sites burned", "Sites recording", "Year", "Calibration 1700–1990", "High-fire threshold (0.80)", "High-fire years", "Other calibration years", "Outside calibration (not used)", "1600", "1950"]) {
+    for (const label of ["Share of sites burned", "Sites", "Year", "Calibration 1700–1990", "High-fire threshold (0.80)", "High-fire years", "Activity, calibration years", "Outside calibration (not used)", "Sites recording (lower strip)", "1600", "1950"]) {
       expect(text).toContain(label);
     }
   });
 
-  it("activityTimeline(input) draws one bar per calibration fire year with activity > 0 in the fire-year path", () => {
+  it("activityTimeline(input) marks every calibration high-fire year with a dot, and only those", () => {
     const document = checkChartSvg(activityTimeline(input));
-    const fire = elementsWith(document, "path", "fill", palette.fireYear).find((element) => element.ancestors.length === 1);
-    const other = elementsWith(document, "path", "fill", palette.otherYear).find((element) => element.ancestors.length === 1);
-    const inside = (entry: (typeof years)[number]) => entry.year >= 1700 && entry.year <= 1990 && (entry.activity ?? 0) > 0;
-    const fireCount = years.filter((entry) => inside(entry) && entry.fireYear).length;
-    const otherCount = years.filter((entry) => inside(entry) && !entry.fireYear).length;
-    expect(fireCount).toBeGreaterThan(20);
-    expect(fire?.attributes.d?.match(/Z/g)).toHaveLength(fireCount);
-    expect(other?.attributes.d?.match(/Z/g)).toHaveLength(otherCount);
+    const dots = elementsWith(document, "circle", "class", "fire-year");
+    const expected = years.filter((entry) => entry.year >= 1700 && entry.year <= 1990 && entry.fireYear && entry.activity !== null);
+    expect(expected.length).toBeGreaterThan(20);
+    expect(dots).toHaveLength(expected.length);
+    expect(dots.every((dot) => dot.attributes.fill === palette.fireYear)).toBe(true);
   });
 
-  it("years outside the calibration period (1580–1699, 1991–2000) are drawn light grey, even when flagged or tall", () => {
+  it("activity is a line, not bars: the calibration years in grey, years outside (1580–1699, 1991–2000) lighter", () => {
     const document = checkChartSvg(activityTimeline(input));
-    const outside = elementsWith(document, "path", "fill", palette.outsideYear).find((element) => element.ancestors.length === 1);
-    const outsideCount = years.filter((entry) => (entry.year < 1700 || entry.year > 1990) && (entry.activity ?? 0) > 0).length;
-    expect(outsideCount).toBeGreaterThan(50);
-    expect(outside?.attributes.d?.match(/Z/g)).toHaveLength(outsideCount);
-    expect(palette.outsideYear).not.toBe(palette.otherYear);
+    const inside = elementsWith(document, "path", "class", "activity");
+    const outside = elementsWith(document, "path", "class", "activity-outside");
+    expect(inside[0]?.attributes.stroke).toBe(palette.otherYear);
+    expect(outside[0]?.attributes.stroke).toBe(palette.outsideYear);
+    expect(inside[0]?.attributes.fill).toBe("none");
+    // Two stretches outside the calibration period (before and after), the first broken by 5 null years at its start.
+    expect(outside[0]?.attributes.d?.match(/M/g)).toHaveLength(2);
+    expect(document.elements.filter((element) => element.name === "path" && element.attributes.fill === palette.fireYear)).toHaveLength(0);
   });
 
-  it("each bar is one year wide: 421 years over the 552-unit plot", () => {
+  it("a dot sits on its year: x = 64 + (year − 1579.5) / 421 × 596 on the default chart", () => {
     const document = checkChartSvg(activityTimeline(input));
-    const fire = elementsWith(document, "path", "fill", palette.fireYear).find((element) => element.ancestors.length === 1);
-    const first = /M([\d.]+) [\d.]+V[\d.]+H([\d.]+)/.exec(fire?.attributes.d ?? "");
-    expect(Number(first?.[2]) - Number(first?.[1])).toBeCloseTo(552 / 421, 1);
+    const first = elementsWith(document, "circle", "class", "fire-year")[0]!;
+    const year = years.find((entry) => entry.year >= 1700 && entry.fireYear)!.year;
+    expect(Number(first.attributes.cx)).toBeCloseTo(64 + ((year - 1579.5) / 421) * 596, 1);
   });
 
-  it("sample depth is a stepped line in the sample-depth colour; the threshold a dashed line", () => {
-    const document = checkChartSvg(activityTimeline(input));
-    expect(elementsWith(document, "path", "stroke", palette.sampleDepth).filter((element) => element.ancestors.length === 1)).toHaveLength(1);
+  it("sample depth is a light area in its own strip under the activity (no second axis on the right); the threshold a dashed line", () => {
+    const svg = activityTimeline(input);
+    const document = checkChartSvg(svg);
+    const depth = elementsWith(document, "path", "class", "sample-depth");
+    expect(depth).toHaveLength(1);
+    expect(depth[0]?.attributes.fill).toBe(palette.sampleDepth);
+    expect(svg).not.toContain("axis-y-right");
     expect(elementsWith(document, "line", "stroke-dasharray", "6 3").filter((element) => element.ancestors.length === 1)).toHaveLength(1);
   });
 
@@ -69,14 +73,13 @@ describe("activityTimeline", () => {
     expect(chartText(checkChartSvg(activityTimeline({ ...input, years: [], threshold: null })))).toContain("High-fire threshold: none");
   });
 
-  it("the sites-recording axis shows distinct integer ticks only, even for a record of one site", () => {
+  it("the sites axis shows distinct integer ticks only, even for a record of one site", () => {
     const svg = activityTimeline({ ...input, years: [{ year: 1800, activity: 0.5, sitesRecording: 1, fireYear: true }] });
-    checkChartSvg(svg);
-    const labels = [...svg.matchAll(/<text[^>]*text-anchor="start" fill="([^"]+)">([^<]*)<\/text>/g)]
-      .filter((match) => match[1] === palette.sampleDepth)
-      .map((match) => match[2]);
+    const document = checkChartSvg(svg);
+    const strip = document.elements.filter((element) => element.name === "g" && element.attributes.class === "axis axis-y-left");
+    expect(strip).toHaveLength(2);
+    const labels = [...svg.matchAll(/<g class="axis axis-y-left">(.*?)<\/g>/g)][1]![1]!.match(/>(\d+)<\/text>/g)!.map((text) => text.slice(1, -7));
     expect(labels.length).toBeGreaterThan(1);
-    for (const label of labels) expect(label).toMatch(/^\d+$/);
     expect(new Set(labels).size).toBe(labels.length);
   });
 

@@ -30,14 +30,14 @@ describe("categoryOddsBar", () => {
     expect(Number(bars[2]?.attributes.y) + Number(bars[2]?.attributes.height)).toBeCloseTo(PLOT_BOTTOM, 1);
   });
 
-  it("each bar carries a hollow average-year marker at its realised share (49% at y = 182 − 0.49 × 148), no one-third line", () => {
+  it("each bar carries an average-year (khaki) marker at its realised share (49% at y = 182 − 0.49 × 148), no one-third line", () => {
     const document = checkChartSvg(categoryOddsBar(input));
     const markers = elementsWith(document, "path", "class", "average-year");
     expect(markers).toHaveLength(3);
     const heights = markers.map((marker) => Number(/translate\([\d.]+ ([\d.]+)\)/.exec(marker.attributes.transform ?? "")?.[1]));
     expect(heights[0]).toBeCloseTo(PLOT_BOTTOM - 0.49 * (PLOT_BOTTOM - PLOT_TOP), 1);
     expect(heights[1]).toBeCloseTo(PLOT_BOTTOM - 0.19 * (PLOT_BOTTOM - PLOT_TOP), 1);
-    expect(markers.every((marker) => marker.attributes.fill === "#ffffff")).toBe(true);
+    expect(markers.every((marker) => marker.attributes.fill === palette.baseRate)).toBe(true);
     expect(elementsWith(document, "line", "stroke-dasharray", "6 4")).toHaveLength(0);
     expect(chartText(document)).not.toContain("Equal odds");
   });

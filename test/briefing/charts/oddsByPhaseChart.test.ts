@@ -25,17 +25,29 @@ describe("oddsByPhaseChart", () => {
   it("oddsByPhaseChart(input) puts the warm dot at x = 112 + 0.25 × 418 on the default 680-wide chart", () => {
     // Plot spans x = 112 … 530 (left margin 112, right margin 150).
     const document = checkChartSvg(oddsByPhaseChart(input));
-    const dots = document.elements.filter((element) => element.name === "circle" && element.ancestors.length === 1);
+    const dots = elementsWith(document, "circle", "class", "phase-estimate");
     expect(dots.map((dot) => Number(dot.attributes.cx))).toEqual([112 + 0.05 * 418, 112 + 0.09 * 418, 112 + 0.25 * 418].map((v) => Math.round(v * 100) / 100));
   });
 
   it("a smallSample phase is drawn hollow and the legend explains it", () => {
     const svg = oddsByPhaseChart({ ...input, phases: [{ ...input.phases[0]!, smallSample: true }, input.phases[1]!] });
     const document = checkChartSvg(svg);
-    const dots = document.elements.filter((element) => element.name === "circle" && element.ancestors.length === 1);
-    expect(dots[0]?.attributes.fill).toBe("#ffffff");
-    expect(dots[1]?.attributes.fill).toBe(palette.estimate);
+    const dots = elementsWith(document, "circle", "class", "phase-estimate");
+    expect(dots[0]?.attributes.fill).toBe(palette.paper);
+    expect(dots[0]?.attributes.stroke).toBe(palette.phaseFirst);
+    expect(dots[1]?.attributes.fill).toBe(palette.phaseLast);
     expect(chartText(document)).toContain("Hollow: few years");
+  });
+
+  it("dots take their phase position's colour (first, middle, last) and this season's phase is ringed in the this-season colour", () => {
+    const svg = oddsByPhaseChart({ ...input, phases: input.phases.map((phase, index) => ({ ...phase, isCurrent: index === 2 })) });
+    const document = checkChartSvg(svg);
+    expect(elementsWith(document, "circle", "class", "phase-estimate").map((dot) => dot.attributes.fill)).toEqual([palette.phaseFirst, palette.phaseMiddle, palette.phaseLast]);
+    const ring = elementsWith(document, "circle", "class", "this-season");
+    expect(ring).toHaveLength(1);
+    expect(ring[0]?.attributes.stroke).toBe(palette.current);
+    expect(Number(ring[0]?.attributes.cx)).toBeCloseTo(112 + 0.25 * 418, 1);
+    expect(chartText(document)).toContain("This season's phase");
   });
 
   it("a phase with a null estimate reads 'not enough data' in its row; all null gives the notice over the axis", () => {

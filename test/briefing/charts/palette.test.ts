@@ -1,5 +1,18 @@
+import { readdirSync, readFileSync } from "node:fs";
+import { join } from "node:path";
+import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { coloursUsedTogether, minimumDeltaE, palette, paletteColour, type PaletteRole } from "../../../src/briefing/charts/palette.js";
+import {
+  COLOUR_MEANINGS,
+  coloursUsedTogether,
+  minimumDeltaE,
+  palette,
+  paletteColour,
+  paletteCss,
+  phaseColour,
+  phaseRole,
+  type PaletteRole,
+} from "../../../src/briefing/charts/palette.js";
 import { hexToLinearRgb, linearRgbToLab, MACHADO_2009, seenDeltaE, simulate, VISIONS } from "./colourVision.js";
 
 describe("colour-vision helpers", () => {
@@ -39,16 +52,24 @@ describe("colour-vision helpers", () => {
 
 describe("palette", () => {
   it("palette has every named role as a #rrggbb colour", () => {
-    const roles = ["estimate", "interval", "limit95", "limit99", "fireYear", "otherYear", "current", "baseRate",
-      "sampleDepth", "below", "near", "above", "ink", "inkMuted", "grid", "shade"] as const;
-    for (const role of roles) expect(palette[role]).toMatch(/^#[0-9a-f]{6}$/);
-    expect(palette.series).toHaveLength(4);
-    for (const colour of palette.series) expect(colour).toMatch(/^#[0-9a-f]{6}$/);
+    for (const [role, colour] of Object.entries(palette)) expect(colour, role).toMatch(/^#[0-9a-f]{6}$/);
+    expect(Object.keys(palette).length).toBeGreaterThanOrEqual(25);
   });
 
-  it("paletteColour('series2') is palette.series[2]", () => {
-    expect(paletteColour("series2")).toBe(palette.series[2]);
+  it("paletteColour(role) is palette[role]; phaseRole() maps positions to first / middle / last", () => {
     expect(paletteColour("fireYear")).toBe(palette.fireYear);
+    expect([0, 1, 2].map((index) => phaseRole(index, 3))).toEqual(["phaseFirst", "phaseMiddle", "phaseLast"]);
+    expect([0, 1, 2, 3].map((index) => phaseRole(index, 4))).toEqual(["phaseFirst", "phaseMiddle", "phaseMiddle", "phaseLast"]);
+    expect([0, 1].map((index) => phaseRole(index, 2))).toEqual(["phaseFirst", "phaseLast"]);
+    expect(phaseRole(0, 1)).toBe("phaseMiddle");
+    expect(phaseRole(Number.NaN, Number.NaN)).toBe("phaseMiddle");
+    expect(phaseRole(9, 3)).toBe("phaseLast");
+    expect(phaseColour(2, 3)).toBe(palette.phaseLast);
+  });
+
+  it("paletteCss() writes one --fp-<role> custom property per role", () => {
+    const css = paletteCss();
+    for (const [role, colour] of Object.entries(palette)) expect(css).toContain(`--fp-${role}: ${colour};`);
   });
 
   const pairs: [string, PaletteRole, PaletteRole][] = [];
@@ -65,31 +86,90 @@ describe("palette", () => {
     }
   });
 
-  it("below / near / above diverge: near is the lightest and below and above differ in hue for every vision", () => {
+  it("each meaning has its own colour: every two meaning colours differ by ΔE*ab ≥ 15 for normal vision", () => {
+    const meanings = COLOUR_MEANINGS.filter((entry) => entry.role !== "estimate");
+    for (let i = 0; i < meanings.length; i += 1) {
+      for (let j = i + 1; j < meanings.length; j += 1) {
+        const first = meanings[i]!;
+        const second = meanings[j]!;
+        expect(seenDeltaE(palette[first.role], palette[second.role], "normal"), `${first.meaning} / ${second.meaning}`).toBeGreaterThanOrEqual(15);
+      }
+    }
+  });
+
+  it("phases and categories are ordinal ramps: lightness falls from the first to the last phase and from below to above normal", () => {
     const lightness = (hex: string): number => linearRgbToLab(hexToLinearRgb(hex))[0];
-    expect(lightness(palette.near)).toBeGreaterThan(lightness(palette.below));
-    expect(lightness(palette.near)).toBeGreaterThan(lightness(palette.above));
     for (const vision of VISIONS) {
-      const below = linearRgbToLab(simulate(hexToLinearRgb(palette.below), vision));
-      const above = linearRgbToLab(simulate(hexToLinearRgb(palette.above), vision));
-      // Opposite signs on the blue–yellow axis b*: blue below, amber above.
-      expect(below[2]).toBeLessThan(0);
-      expect(above[2]).toBeGreaterThan(0);
+      const seen = (hex: string): number => linearRgbToLab(simulate(hexToLinearRgb(hex), vision))[0];
+      expect(seen(palette.phaseFirst)).toBeGreaterThan(seen(palette.phaseMiddle) + 10);
+      expect(seen(palette.phaseMiddle)).toBeGreaterThan(seen(palette.phaseLast) + 10);
+      expect(seen(palette.below)).toBeGreaterThan(seen(palette.near) + 10);
+      expect(seen(palette.near)).toBeGreaterThan(seen(palette.above) + 10);
+    }
+    expect(lightness(palette.below)).toBeLessThan(100);
+  });
+
+  it("below / near / above are not an official outlook's trio: no blue–grey–orange or blue–white–red, one hue throughout", () => {
+    const hue = (hex: string): number => {
+      const [, a, b] = linearRgbToLab(hexToLinearRgb(hex));
+      return (Math.atan2(b, a) * 180) / Math.PI;
+    };
+    const chroma = (hex: string): number => {
+      const [, a, b] = linearRgbToLab(hexToLinearRgb(hex));
+      return Math.hypot(a, b);
+    };
+    const hues = [palette.below, palette.near, palette.above].map(hue);
+    // One hue family: all three within 25° of each other, none grey (chroma ≥ 10), none blue (hue near −90° … −60°) or orange/red (0° … 70°).
+    expect(Math.max(...hues) - Math.min(...hues)).toBeLessThan(25);
+    for (const colour of [palette.below, palette.near, palette.above]) {
+      expect(chroma(colour)).toBeGreaterThanOrEqual(10);
+      const h = hue(colour);
+      expect(h > 0 && h < 70, `${colour} hue ${h}`).toBe(false);
+      expect(h > -100 && h < -60, `${colour} hue ${h}`).toBe(false);
     }
   });
 
   it("every ink used for data stands out from the white page (ΔE*ab ≥ 20 for every vision)", () => {
-    for (const role of ["estimate", "limit95", "limit99", "fireYear", "otherYear", "current", "baseRate", "below", "above", "ink"] as const) {
-      for (const vision of VISIONS) expect(seenDeltaE(palette[role], "#ffffff", vision)).toBeGreaterThanOrEqual(20);
+    for (const role of ["estimate", "fireYear", "otherYear", "current", "baseRate", "phaseFirst", "phaseMiddle", "phaseLast", "below", "near", "above", "ink"] as const) {
+      for (const vision of VISIONS) expect(seenDeltaE(palette[role], palette.paper, vision), `${role} under ${vision}`).toBeGreaterThanOrEqual(20);
     }
   });
 
   it("the palette is not a fire-danger ladder: no pure red, green or yellow among its colours", () => {
-    const all = [...Object.values(palette).filter((value): value is string => typeof value === "string"), ...palette.series];
-    for (const colour of all) {
+    for (const colour of Object.values(palette)) {
       expect(seenDeltaE(colour, "#ff0000", "normal")).toBeGreaterThan(25);
       expect(seenDeltaE(colour, "#00ff00", "normal")).toBeGreaterThan(25);
       expect(seenDeltaE(colour, "#ffff00", "normal")).toBeGreaterThan(25);
     }
+  });
+});
+
+describe("one colour map: no chart and no style sheet has a colour of its own", () => {
+  const chartsFolder = fileURLToPath(new URL("../../../src/briefing/charts/", import.meta.url));
+  const templatesFolder = fileURLToPath(new URL("../../../templates/", import.meta.url));
+  const colourLiteral = /#[0-9a-f]{3,8}\b|\brgba?\(|\bhsla?\(|\b(?:white|black|red|green|blue|orange|grey|gray|purple|yellow)\b(?=["';\s])/i;
+  const chartFiles = readdirSync(chartsFolder).filter((file) => file.endsWith(".ts") && file !== "palette.ts");
+
+  it.each(chartFiles)("src/briefing/charts/%s holds no colour literal (hex, rgb(), hsl() or a colour name)", (file) => {
+    const source = readFileSync(join(chartsFolder, file), "utf8")
+      // Comments may name colours in words.
+      .replace(/\/\*[\s\S]*?\*\//g, "")
+      .replace(/\/\/.*$/gm, "");
+    expect(source).not.toMatch(colourLiteral);
+  });
+
+  it("templates/briefing.css uses palette roles only (var(--fp-…)), no colour literal", () => {
+    const css = readFileSync(join(templatesFolder, "briefing.css"), "utf8").replace(/\/\*[\s\S]*?\*\//g, "");
+    expect(css).not.toMatch(colourLiteral);
+    const used = [...css.matchAll(/var\(--fp-([A-Za-z0-9]+)\)/g)].map((match) => match[1]);
+    expect(used.length).toBeGreaterThan(5);
+    for (const role of used) expect(Object.keys(palette)).toContain(role);
+  });
+
+  it("the scan would catch a hard-coded colour (the check can fail)", () => {
+    expect('fill: "#ffffff"').toMatch(colourLiteral);
+    expect("stroke: rgb(0, 0, 0)").toMatch(colourLiteral);
+    expect('fill: "white"').toMatch(colourLiteral);
+    expect("fill: palette.paper").not.toMatch(colourLiteral);
   });
 });

@@ -3,7 +3,7 @@ import { palette } from "../../../src/briefing/charts/palette.js";
 import { seaChart, type SeaChartInput } from "../../../src/briefing/charts/seaChart.js";
 import { chartText, checkChartSvg, elementsWith } from "./svgAssertions.js";
 
-const lags = [-6, -5, -4, -3, -2, -1, 0, 1, 2, 3, 4];
+const lags = [-4, -3, -2, -1, 0, 1, 2];
 const input: SeaChartInput = Object.freeze({
   indexName: "ENSO",
   lags,
@@ -12,47 +12,54 @@ const input: SeaChartInput = Object.freeze({
   ci99: lags.map(() => [-0.42, 0.44] as const),
 });
 
-const bars = (svg: string) =>
-  checkChartSvg(svg).elements.filter((element) => element.name === "rect" && (element.attributes.fill === palette.estimate || element.attributes.fill === palette.interval) && element.ancestors.length === 1);
+const means = (svg: string) => checkChartSvg(svg).elements.filter((element) => element.name === "circle" && (element.attributes.class ?? "").startsWith("sea-mean"));
 
 describe("seaChart", () => {
-  it("seaChart(input) labels both axes and every lag with a signed integer (lag 0 = fire year)", () => {
+  it("seaChart(input) labels both axes, every lag with a signed integer and the high-fire year's column", () => {
     const text = chartText(checkChartSvg(seaChart(input)));
-    for (const label of ["Years from high-fire year", "Index departure", "\u22126", "\u22121", "0", "+1", "+4", "95% limits", "99% limits"]) {
+    for (const label of ["Years before (−) and after (+) a high-fire year", "Index departure from its mean", "\u22124", "\u22121", "0", "+1", "+2", "High-fire year", "Chance alone, 95% of random years", "99%"]) {
       expect(text).toContain(label);
     }
   });
 
-  it("seaChart(input) draws one bar per lag; bars outside the 95% limits are dark, the others pale", () => {
-    const drawn = bars(seaChart(input));
-    expect(drawn).toHaveLength(11);
-    expect(drawn.filter((bar) => bar.attributes.fill === palette.estimate)).toHaveLength(2); // lags −1 and 0
-    expect(drawn.filter((bar) => bar.attributes.fill === palette.interval)).toHaveLength(9);
+  it("seaChart(input) draws one dot per lag: filled beyond the 95% envelope (lags −1 and 0), hollow within it; no bars, no limit lines", () => {
+    const svg = seaChart(input);
+    const dots = means(svg);
+    expect(dots).toHaveLength(7);
+    const beyond = dots.filter((dot) => dot.attributes.class === "sea-mean beyond");
+    expect(beyond).toHaveLength(2);
+    expect(beyond.every((dot) => dot.attributes.fill === palette.estimate)).toBe(true);
+    expect(dots.filter((dot) => dot.attributes.class === "sea-mean within").every((dot) => dot.attributes.fill === palette.paper)).toBe(true);
+    const document = checkChartSvg(svg);
+    expect(document.elements.filter((element) => element.name === "rect" && element.attributes.fill === palette.estimate)).toHaveLength(0);
+    expect(document.elements.filter((element) => element.attributes["stroke-dasharray"] !== undefined)).toHaveLength(0);
+    // The two values beyond chance are written beside their dots.
+    expect(chartText(document)).toContain("+0.62");
+    expect(chartText(document)).toContain("\u22120.35");
   });
 
-  it("the lag-0 bar rises from the zero line by 0.62 in data units", () => {
+  it("the lag-0 dot sits 0.62 data units above the zero line (y domain niced to [−0.6, 0.8] over 164 units)", () => {
     const svg = seaChart(input);
     const document = checkChartSvg(svg);
-    const zero = document.elements.find((element) => element.name === "line" && element.attributes.stroke === palette.ink && element.attributes.x1 === "64");
-    const bar = bars(svg)[6]!;
-    const height = Number(bar.attributes.height);
-    const barBottom = Number(bar.attributes.y) + height;
-    expect(Number(zero?.attributes.y1)).toBeCloseTo(barBottom, 1);
-    // y domain niced to [−0.6, 0.8] over 184 units (top 12, bottom 260 − 64).
-    expect(height).toBeCloseTo((0.62 / 1.4) * 184, 1);
+    const zero = document.elements.find((element) => element.name === "line" && element.attributes.stroke === palette.inkMuted && element.attributes.x1 === "64" && element.attributes.x2 === "660");
+    const dot = means(svg)[4]!;
+    // Plot from y = 22 to 250 − 64 = 186: 164 units for 1.4 data units.
+    expect(Number(zero?.attributes.y1) - Number(dot.attributes.cy)).toBeCloseTo((0.62 / 1.4) * 164, 1);
+    // Lags are evenly spaced: lag 0 in the middle of 7 columns over x = 64 … 660.
+    expect(Number(dot.attributes.cx)).toBeCloseTo(64 + (4.5 / 7) * 596, 1);
   });
 
-  it("95% and 99% limits are stepped paths (upper and lower each); a null limit breaks the line", () => {
+  it("the chance envelopes are shaded areas (99% under 95%) and the high-fire-year column is tinted; a null limit breaks the envelope", () => {
     const document = checkChartSvg(seaChart(input));
-    expect(elementsWith(document, "path", "stroke", palette.limit95)).toHaveLength(2);
-    expect(elementsWith(document, "path", "stroke", palette.limit99)).toHaveLength(2);
-    const gap = checkChartSvg(seaChart({ ...input, ci95: input.ci95.map((limits, index) => (index === 5 ? null : limits)) }));
-    const paths = elementsWith(gap, "path", "stroke", palette.limit95);
-    expect(paths.every((path) => (path.attributes.d?.match(/M/g) ?? []).length === 2)).toBe(true);
+    expect(elementsWith(document, "path", "class", "chance-95")[0]?.attributes.fill).toBe(palette.chance);
+    expect(elementsWith(document, "path", "class", "chance-99")[0]?.attributes.fill).toBe(palette.chanceOuter);
+    expect(elementsWith(document, "rect", "class", "fire-year-column")[0]?.attributes.fill).toBe(palette.fireYearTint);
+    const gap = checkChartSvg(seaChart({ ...input, ci95: input.ci95.map((limits, index) => (index === 3 ? null : limits)) }));
+    expect(elementsWith(gap, "path", "class", "chance-95")[0]?.attributes.d?.match(/M/g)).toHaveLength(2);
   });
 
   it("null means are left out; all null (or no lags) gives 'not enough data' over the axes", () => {
-    expect(bars(seaChart({ ...input, mean: input.mean.map((value, index) => (index < 3 ? null : value)) }))).toHaveLength(8);
+    expect(means(seaChart({ ...input, mean: input.mean.map((value, index) => (index < 3 ? null : value)) }))).toHaveLength(4);
     for (const empty of [
       { ...input, mean: lags.map(() => null), ci95: lags.map(() => null), ci99: lags.map(() => null) },
       { indexName: "ENSO", lags: [], mean: [], ci95: [], ci99: [] },
@@ -60,7 +67,7 @@ describe("seaChart", () => {
     ]) {
       const document = checkChartSvg(seaChart(empty));
       expect(elementsWith(document, "text", "class", "not-enough-data")).toHaveLength(1);
-      expect(chartText(document)).toContain("Index departure");
+      expect(chartText(document)).toContain("Index departure from its mean");
     }
   });
 

@@ -24,10 +24,10 @@ describe("stabilityChart", () => {
     }
   });
 
-  it("each phase has its own colour, a band, a line and one marker per window with an estimate", () => {
+  it("each phase takes its position's colour (first, last), with a band, a line and one marker per window with an estimate", () => {
     const svg = stabilityChart(input);
-    const cold = plotted(svg, palette.series[0]);
-    const warm = plotted(svg, palette.series[1]);
+    const cold = plotted(svg, palette.phaseFirst);
+    const warm = plotted(svg, palette.phaseLast);
     // band + line + 10 markers; warm misses one window
     expect(cold).toHaveLength(12);
     expect(warm).toHaveLength(11);
@@ -40,9 +40,21 @@ describe("stabilityChart", () => {
 
   it("markers sit at the window middle years: first at (1700 + 1799) / 2 on the left edge", () => {
     const svg = stabilityChart(input);
-    const markers = plotted(svg, palette.series[0]).filter((element) => element.attributes.transform);
+    const markers = plotted(svg, palette.phaseFirst).filter((element) => element.attributes.transform);
     expect(markers[0]?.attributes.transform).toMatch(/^translate\(68 /);
     expect(markers[9]?.attributes.transform).toMatch(/^translate\(656 /);
+  });
+
+  it("three or more phases: middle phases share the middle colour, a second middle phase is dotted; the average year is khaki and dashed", () => {
+    const labels = ["a", "b", "c", "d"];
+    const svg = stabilityChart({ labels, baseRate: 0.1, windows: [{ first: 1700, last: 1799, phases: labels.map((label) => ({ label, estimate: 0.2, lower: 0.1, upper: 0.3 })) }, { first: 1710, last: 1809, phases: labels.map((label) => ({ label, estimate: 0.25, lower: 0.1, upper: 0.4 })) }] });
+    const document = checkChartSvg(svg);
+    const lines = document.elements.filter((element) => element.name === "path" && element.attributes.fill === "none" && element.ancestors.length === 1);
+    expect(lines.map((element) => element.attributes.stroke)).toEqual([palette.phaseFirst, palette.phaseMiddle, palette.phaseMiddle, palette.phaseLast]);
+    expect(lines.map((element) => element.attributes["stroke-dasharray"])).toEqual([undefined, undefined, "2 2", undefined]);
+    const base = elementsWith(document, "line", "stroke", palette.baseRate).filter((element) => element.ancestors.length === 1);
+    expect(base).toHaveLength(1);
+    expect(base[0]?.attributes["stroke-dasharray"]).toBe("6 4");
   });
 
   it("no windows, or all-null estimates, gives 'not enough data' over the axes", () => {
