@@ -6,8 +6,8 @@ import type { FireYearSettings, MethodSettings } from "./types.js";
  */
 export const DEFAULT_METHODS: MethodSettings = Object.freeze({
   interval: "wilson",
-  seaFirstLag: -6,
-  seaLastLag: 4,
+  seaFirstLag: -4,
+  seaLastLag: 2,
   seaDraws: 10_000,
   blockYears: 5,
   blockMaxLag: 2,

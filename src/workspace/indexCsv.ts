@@ -241,7 +241,7 @@ function checkMissingCodes(index: IndexSettings, cells: readonly Cell[], layout:
     if (reported.has(key)) continue;
     reported.add(key);
     const when = layout === "yearly" ? `${cell.year}` : `${monthName(cell.month)} ${cell.year}`;
-    const why = common ? "a common missing-value code" : `far outside the rest of the series (median size ${formatSize(median)})`;
+    const why = common ? "a common missing-value code" : `far outside the rest of the series, whose median size is ${formatSize(median)}`;
     problems.add(
       cell.line,
       `${index.name} ${when}: the value ${echoText(cell.text)} looks like a missing-value code (${why}); if it marks a missing value, declare it in region.json as "indices": { "${index.name}": { "missing": [${formatCode(cell.value)}] } }, or leave the cell empty`,
