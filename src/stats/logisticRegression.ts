@@ -323,7 +323,7 @@ function newtonFit(
   let iterations = 0;
   while (iterations < maxIterations && !converged) {
     iterations += 1;
-    const score = penalized ? firthScore(design, y, state) : plainScore(design, y, state.fitted);
+    const score = penalized ? firthScore(design, state) : plainScore(design, state.residuals);
     const freeScore = freeIndices.map((index) => score[index] ?? 0);
     const block = (matrix: number[][]) => freeIndices.map((row) => freeIndices.map((column) => matrix[row]?.[column] ?? 0));
     // Maximum likelihood: Newton–Raphson, whose Hessian for the logit link is −XᵀWX. Firth: Newton on the penalized
@@ -372,6 +372,8 @@ function newtonFit(
 
 interface FitState {
   fitted: number[];
+  /** yᵢ − πᵢ computed without cancellation (from expit(−η) when yᵢ = 1), so it does not round to 0 as π → 1. */
+  residuals: number[];
   weights: number[];
   information: number[][];
   logLikelihood: number;
@@ -380,6 +382,7 @@ interface FitState {
 function evaluate(design: number[][], y: number[], coefficients: number[], penalized: boolean): FitState {
   const coefficientCount = coefficients.length;
   const fitted: number[] = [];
+  const residuals: number[] = [];
   const weights: number[] = [];
   const information = Array.from({ length: coefficientCount }, () => Array.from({ length: coefficientCount }, () => 0));
   let logLikelihood = 0;
@@ -391,6 +394,7 @@ function evaluate(design: number[][], y: number[], coefficients: number[], penal
     const expNegative = Math.exp(-Math.abs(linear));
     const weight = expNegative / ((1 + expNegative) * (1 + expNegative));
     fitted.push(probability);
+    residuals.push((y[caseIndex] ?? 0) === 1 ? expit(-linear) : -probability);
     weights.push(weight);
     for (let r = 0; r < coefficientCount; r += 1) {
       const informationRow = information[r] as number[];
@@ -403,21 +407,21 @@ function evaluate(design: number[][], y: number[], coefficients: number[], penal
     const logDeterminant = logDeterminantOf(information);
     logLikelihood = logDeterminant === null ? Number.NEGATIVE_INFINITY : logLikelihood + logDeterminant / 2;
   }
-  return { fitted, weights, information, logLikelihood };
+  return { fitted, residuals, weights, information, logLikelihood };
 }
 
-function plainScore(design: number[][], y: number[], fitted: number[]): number[] {
+function plainScore(design: number[][], residuals: number[]): number[] {
   const coefficientCount = design[0]?.length ?? 0;
   const score = Array.from({ length: coefficientCount }, () => 0);
   design.forEach((row, caseIndex) => {
-    const residual = (y[caseIndex] ?? 0) - (fitted[caseIndex] ?? 0);
+    const residual = residuals[caseIndex] ?? 0;
     for (let r = 0; r < coefficientCount; r += 1) score[r] = (score[r] ?? 0) + residual * (row[r] ?? 0);
   });
   return score;
 }
 
 /** Firth's modified score Σ (yᵢ − πᵢ + hᵢ(½ − πᵢ))xᵢ, hᵢ = wᵢ xᵢᵀ(XᵀWX)⁻¹xᵢ (full design). */
-function firthScore(design: number[][], y: number[], state: FitState): number[] {
+function firthScore(design: number[][], state: FitState): number[] {
   const coefficientCount = design[0]?.length ?? 0;
   const inverse = invert(state.information);
   const score = Array.from({ length: coefficientCount }, () => 0);
@@ -425,7 +429,7 @@ function firthScore(design: number[][], y: number[], state: FitState): number[] 
   design.forEach((row, caseIndex) => {
     const probability = state.fitted[caseIndex] ?? 0;
     const leverage = (state.weights[caseIndex] ?? 0) * quadraticForm(inverse, row);
-    const residual = (y[caseIndex] ?? 0) - probability + leverage * (0.5 - probability);
+    const residual = (state.residuals[caseIndex] ?? 0) + leverage * (0.5 - probability);
     for (let r = 0; r < coefficientCount; r += 1) score[r] = (score[r] ?? 0) + residual * (row[r] ?? 0);
   });
   return score;

@@ -5,6 +5,7 @@ import { logisticRegression } from "../../src/stats/logisticRegression.js";
 import { StatsInputError } from "../../src/stats/StatsInputError.js";
 import {
   emptyCellTable,
+  endometrialSeparation,
   shuttleOringAnyDistress,
   shuttleOringMinitab,
 } from "../fixtures/published/logisticRegressionExamples.js";
@@ -220,6 +221,42 @@ describe("logisticRegression(predictors, outcomes) — published worked examples
     expect(fit.coefficients[1]).toBeCloseTo(emptyCellTable.firthFromHaldaneIdentity.slope, 8);
     // The maximum-likelihood estimate SAS printed is far larger: the data carry no finite ML slope.
     expect(fit.coefficients[1]!).toBeLessThan(emptyCellTable.maximumLikelihoodPrinted.slope);
+  });
+
+  // Heinze & Schemper (2002) endometrial data (Agresti 2015 data file, V); Firth estimates (SE) as printed in
+  // Rigon & Aliverti (2023) Table 1 from R brglm2 (V): 3.775 (1.489), 2.929 (1.551), −0.035 (0.04), −2.604 (0.776).
+  it("endometrial study, HG on [NV, PI, EH] → separation on NV; Firth 3.775, 2.929, −0.035, −2.604", () => {
+    const rows = endometrialSeparation.predictors.map((row) => [...row]);
+    const outcomes = endometrialSeparation.highGrade.map((value) => value === 1);
+    const fit = logisticRegression(rows, outcomes);
+    expect(fit.separation).toBe(true);
+    expect(fit.method).toBe("Firth penalized likelihood");
+    expect(fit.converged).toBe(true);
+    const printed = endometrialSeparation.firthPrinted;
+    expect(fit.coefficients[0]).toBeCloseTo(printed.coefficients[0], 3);
+    expect(fit.coefficients[1]).toBeCloseTo(printed.coefficients[1], 3);
+    expect(fit.coefficients[2]).toBeCloseTo(printed.coefficients[2], 3);
+    expect(fit.coefficients[3]).toBeCloseTo(printed.coefficients[3], 3);
+    expect(fit.standardErrors[0]).toBeCloseTo(printed.standardErrors[0], 3);
+    expect(fit.standardErrors[1]).toBeCloseTo(printed.standardErrors[1], 3);
+    expect(fit.standardErrors[2]).toBeCloseTo(printed.standardErrors[2], 2);
+    expect(fit.standardErrors[3]).toBeCloseTo(printed.standardErrors[3], 3);
+  });
+
+  it("endometrial study without Firth: the divergent ML fit's other coefficients approach the printed 4.305, −0.042, −2.903", () => {
+    // Maximum likelihood only exists in the limit NV → ∞; the NV = 0 cases alone give the same finite coefficients.
+    const keep = endometrialSeparation.predictors.map(([nv]) => nv === 0);
+    const rows = endometrialSeparation.predictors.filter((_, i) => keep[i]).map(([, pi, eh]) => [pi, eh]);
+    const outcomes = endometrialSeparation.highGrade.filter((_, i) => keep[i]).map((value) => value === 1);
+    const fit = logisticRegression(rows, outcomes);
+    const printed = endometrialSeparation.maximumLikelihoodWithoutNeovasculization;
+    expect(fit.method).toBe("maximum likelihood");
+    expect(fit.coefficients[0]).toBeCloseTo(printed.coefficients[0], 3);
+    expect(fit.coefficients[1]).toBeCloseTo(printed.coefficients[1], 3);
+    expect(fit.coefficients[2]).toBeCloseTo(printed.coefficients[2], 3);
+    expect(fit.standardErrors[0]).toBeCloseTo(printed.standardErrors[0], 3);
+    expect(fit.standardErrors[1]).toBeCloseTo(printed.standardErrors[1], 3);
+    expect(fit.standardErrors[2]).toBeCloseTo(printed.standardErrors[2], 3);
   });
 });
 
