@@ -50,10 +50,12 @@ export interface BreslowDayOptions {
  * @throws {StatsInputError} if there are no strata, a table is not 2 × 2, or a count is negative or not finite.
  * @example
  * ```ts
- * // SAS/STAT User's Guide, PROC FREQ, "Analysis of a 2×2×K table" (migraine treatment by gender)
- * breslowDayTest([[[16, 11], [5, 20]], [[12, 16], [7, 19]]]);
- * // => { statistic: 1.4929, df: 1, pValue: 0.2218, commonOddsRatio: 3.3132, tarone: false, … }
+ * // Smoking and cervical cancer, stratified by number of partners (0–1, ≥ 2); printed R DescTools output
+ * breslowDayTest([[[12, 21], [25, 118]], [[96, 148], [92, 150]]]);
+ * // => { statistic: 4.2069, df: 1, pValue: 0.04026, commonOddsRatio: 1.2153, tarone: false, droppedStrata: [] }
  * ```
+ * @see SAS Institute, SAS/STAT User's Guide, The FREQ Procedure, example "Cochran-Mantel-Haenszel Statistics"
+ *   (migraine trial by gender; Breslow–Day 1.4929, p 0.2218).
  * @see Breslow N.E., Day N.E. (1980) Statistical Methods in Cancer Research, Vol. 1: The Analysis of
  *   Case-Control Studies, IARC Scientific Publications No. 32, Lyon, §4.4 (eq. 4.30, test of homogeneity).
  * @see Mantel N., Haenszel W. (1959) "Statistical aspects of the analysis of data from retrospective studies
