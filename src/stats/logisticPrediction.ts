@@ -32,8 +32,9 @@ export interface LogisticPrediction {
  *   strictly between 0 and 1.
  * @example
  * ```ts
- * // Space shuttle O-ring data (Agresti 2007, An Introduction to Categorical Data Analysis, 2nd ed., Table 5.10
- * // data): logit = 15.043 − 0.2322·temperature; at 31 °F the fitted probability of an incident is 0.9996
+ * // Space shuttle O-ring data (Dalal, Fowlkes & Hoadley 1989): logit = 15.043 − 0.2322·temperature; at 31 °F
+ * // the fitted probability of an incident is 0.9996 (as in Agresti 2007, An Introduction to Categorical Data
+ * // Analysis, 2nd ed., quoted from memory)
  * logisticPrediction(logisticRegression(temperatures.map((t) => [t]), incidents), [31]);
  * // => { estimate: 0.99961, lower: 0.4816, upper: 0.9999999 }
  * ```

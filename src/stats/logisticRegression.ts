@@ -92,10 +92,12 @@ const RANK_TOLERANCE = 1e-9;
  * @example
  * ```ts
  * // Space shuttle O-ring thermal distress (any incident) on launch temperature (°F), 23 launches
- * // (Agresti 2007, An Introduction to Categorical Data Analysis, 2nd ed., Table 5.10 data)
+ * // (data of Dalal, Fowlkes & Hoadley 1989; the fit as printed by R glm for this example)
  * logisticRegression(temperatures.map((t) => [t]), incidents);
  * // => { coefficients: [15.043, -0.2322], standardErrors: [7.379, 0.1082], method: "maximum likelihood", … }
  * ```
+ * @see Dalal S.R., Fowlkes E.B., Hoadley B. (1989) "Risk analysis of the space shuttle: pre-Challenger prediction
+ *   of failure", Journal of the American Statistical Association 84(408):945–957 (the example's data).
  * @see Agresti A. (2013) Categorical Data Analysis, 3rd ed., Wiley, §4.6 and §5.1 (Newton–Raphson / IRLS for
  *   logistic regression, likelihood-ratio tests).
  * @see Albert A., Anderson J.A. (1984) "On the existence of maximum likelihood estimates in logistic regression
@@ -304,8 +306,9 @@ function allFree(count: number): boolean[] {
 }
 
 /**
- * Newton–Raphson for the log-likelihood (penalized = false) or Fisher scoring on Firth's modified score
- * (penalized = true), over the coefficients marked free (the others stay at 0), with step halving.
+ * Newton–Raphson for the log-likelihood (penalized = false) or for Firth's penalized log-likelihood (penalized =
+ * true: exact Hessian, Fisher scoring where that is not negative definite), over the coefficients marked free (the
+ * others stay at 0), with step halving.
  */
 function newtonFit(
   design: number[][],
