@@ -3,7 +3,9 @@
  * src/outlook/describeChance.ts (`formatPercent`, `formatPercentRange`, `describeChance`), so the
  * page and the outlook JSON compare with a single rule; the other figures pass through these.
  */
-import { format, isValid, parseISO } from "date-fns";
+import { format } from "date-fns/format";
+import { isValid } from "date-fns/isValid";
+import { parseISO } from "date-fns/parseISO";
 
 function assertProbability(name: string, p: number): void {
   if (!Number.isFinite(p) || p < 0 || p > 1) throw new RangeError(`${name}: expected a probability in 0–1 (got ${p})`);

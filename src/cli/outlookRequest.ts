@@ -1,4 +1,8 @@
-import { addYears, format, getMonth, isValid, parseISO } from "date-fns";
+import { addYears } from "date-fns/addYears";
+import { format } from "date-fns/format";
+import { getMonth } from "date-fns/getMonth";
+import { isValid } from "date-fns/isValid";
+import { parseISO } from "date-fns/parseISO";
 import type { Command } from "commander";
 import { currentSeasonValue } from "../climate/currentSeasonValue.js";
 import type { OutlookRequest, OutlookValueDetail } from "../outlook/buildOutlook.js";

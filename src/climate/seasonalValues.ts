@@ -1,4 +1,6 @@
-import { addMonths, getMonth, getYear } from "date-fns";
+import { addMonths } from "date-fns/addMonths";
+import { getMonth } from "date-fns/getMonth";
+import { getYear } from "date-fns/getYear";
 
 /** English three-letter month abbreviations, January first, as accepted in `"months"`. */
 export const MONTH_ABBREVIATIONS = [

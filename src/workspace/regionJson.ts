@@ -1,4 +1,5 @@
-import { isValid, parseISO } from "date-fns";
+import { isValid } from "date-fns/isValid";
+import { parseISO } from "date-fns/parseISO";
 import { z } from "zod";
 import { parseMonthWindow } from "../climate/seasonalValues.js";
 import { DEFAULT_FIRE_YEARS, DEFAULT_METHODS, DEFAULT_SEED, DEFAULT_TERCILE_LABELS } from "./defaults.js";
