@@ -17,6 +17,9 @@ import { handleError } from "./handleError.js";
 import { addOutlookOptions, resolveOutlookRequest } from "./outlookRequest.js";
 import { firephaseVersion } from "./version.js";
 import { jsonText } from "./printJson.js";
+import { readKeptOutlooks, reviewRegion } from "./keptOutlooks.js";
+import { readKeptOutlook } from "../review/readKeptOutlook.js";
+import { sinceLastBriefing } from "../review/sinceLastBriefing.js";
 import { toOutlookJson } from "../outlook/toOutlookJson.js";
 import { checkOutputTargets, OutputPathError, outputNameProblem, realTarget, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
 
@@ -221,7 +224,13 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       throw new Error(`cannot read ${safetyPath}: the briefing prints its cautions and must not be made without them`);
     }
     const madeAt = context.today.toISOString();
-    const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper, madeAt });
+    const outlookText = jsonText(toOutlookJson(outlook));
+    // The region's memory: how the kept outlooks turned out, and what changed since the last one.
+    const read = await readKeptOutlooks(workspace);
+    const earlier = keptTarget === null ? read.kept : read.kept.filter((kept) => resolve(kept.file) !== resolve(keptTarget));
+    const review = earlier.length === 0 ? null : reviewRegion(workspace, calibration, { kept: earlier, problems: read.problems });
+    const sinceLast = sinceLastBriefing(readKeptOutlook(outlookText, keptTarget ?? "this outlook"), earlier);
+    const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper, madeAt, review, sinceLast });
     const html = renderBriefingHtml(view);
     await outputChecked(() => checkOutputTargets(targets, replace));
     let printer: PdfPrinter;
@@ -238,7 +247,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     });
     const files: FileToWrite[] = [{ path: pdfTarget, data: printed.pdf }];
     if (htmlGiven !== null) files.push({ path: htmlGiven, data: html });
-    if (keptTarget !== null) files.push({ path: keptTarget, data: jsonText(toOutlookJson(outlook)) });
+    if (keptTarget !== null) files.push({ path: keptTarget, data: outlookText });
     let madeFolder = false;
     if (keptTarget !== null && !(await stat(issuedFolder).then(() => true, () => false))) {
       await mkdir(issuedFolder).catch((error: unknown) => {

@@ -7,6 +7,7 @@ import { calibrateCommand } from "./calibrate.js";
 import { checkCommand } from "./check.js";
 import { handleError } from "./handleError.js";
 import { outlookCommand } from "./outlook.js";
+import { reviewCommand } from "./review.js";
 import { firephaseVersion } from "./version.js";
 
 /**
@@ -24,7 +25,7 @@ export function createProgram(): Command {
     .version(firephaseVersion(), "-V, --version", "print the version")
     .exitOverride()
     .showHelpAfterError("(run firephase --help for usage)");
-  for (const command of [checkCommand(), calibrateCommand(), outlookCommand(), briefCommand()]) {
+  for (const command of [checkCommand(), calibrateCommand(), outlookCommand(), briefCommand(), reviewCommand()]) {
     program.addCommand(command.copyInheritedSettings(program));
   }
   return program;

@@ -66,6 +66,10 @@ export interface ReviewedOutlook {
   readonly squaredError: number | null;
   /** Whether the outlook put the odds above the average year's (its own base rate, else the reference rate); null when neither is known. */
   readonly saidHigher: boolean | null;
+  /** False when a later kept outlook of the same season supersedes it (only the last of a season is scored). */
+  readonly scored: boolean;
+  /** Issue date of the outlook that superseded it (present only when `scored` is false). */
+  readonly supersededBy?: string | null;
 }
 
 /** A score that may not be computable: value null with a reason. */
