@@ -18,9 +18,12 @@ export interface CsvTable {
   readonly columns: readonly string[];
   /** 1-based line of the header. */
   readonly headerLine: number;
-  readonly rows: readonly CsvRow[];
+  /** The data rows in file order, each cut out of the text when the iteration reaches it. */
+  readonly rows: Iterable<CsvRow>;
+  /** Number of data rows. */
+  readonly rowCount: number;
   /** Comma-separated (RFC 4180 CSV) or whitespace-separated text; "comma" unless the caller allowed whitespace. */
-  readonly layout?: TableLayout;
+  readonly layout: TableLayout;
 }
 
 /** Options of {@link readCsvTable}. */
@@ -69,16 +72,35 @@ function firstInvalidUtf8Line(bytes: Uint8Array): number | null {
 
 const quote = (text: string): string => `"${echoText(text).replaceAll('"', '\\"')}"`;
 
-interface RawRecord {
-  readonly fields: string[];
-  /** Physical line where the record starts. */
-  readonly line: number;
-  /** The record starts with `#`. */
-  readonly comment: boolean;
+/** A growable list of 32-bit integers (a record's offset, line and field count), far smaller than objects per record. */
+class IntList {
+  private data = new Int32Array(1024);
+  length = 0;
+
+  push(value: number): void {
+    if (this.length === this.data.length) {
+      const grown = new Int32Array(this.data.length * 2);
+      grown.set(this.data);
+      this.data = grown;
+    }
+    this.data[this.length++] = value;
+  }
+
+  at(index: number): number {
+    return this.data[index] as number;
+  }
 }
 
-interface SplitResult {
-  readonly records: RawRecord[];
+/**
+ * Where each record of a file starts: its offset in the text, its physical line and its number of
+ * fields. Fields are cut out only when a row is reached, so a file of millions of rows does not
+ * hold millions of objects at once.
+ */
+interface RecordIndex {
+  readonly offsets: IntList;
+  readonly lines: IntList;
+  /** Number of fields; negative for a `#` comment line of a CSV file. */
+  readonly counts: IntList;
   readonly error: { readonly line: number; readonly message: string } | null;
 }
 
@@ -88,120 +110,181 @@ const COMMA = 44;
 const QUOTE = 34;
 const SPACE = 32;
 const TAB = 9;
+const HASH = 35;
+
+interface CsvRecord {
+  /** Position after the record and its line break. */
+  next: number;
+  /** Physical line after the record. */
+  line: number;
+  fieldCount: number;
+  /** Nothing but spaces and tabs: a blank line. */
+  blank: boolean;
+  error: { line: number; message: string } | null;
+}
 
 /**
- * RFC 4180 record splitter that counts physical lines itself: CRLF, LF and a lone CR each end one
- * line, inside quoted fields too, so a record's line is the physical line where it starts. Blank
- * lines (nothing or only spaces and tabs) are skipped. Stops at the first quoting error.
+ * Reads one RFC 4180 record starting at `start` on physical line `startLine`. CRLF, LF and a lone
+ * CR each end one physical line, inside quoted fields too. With `fields` given, the fields' text
+ * is pushed onto it (unquoted, doubled quotes made single); without, only counted.
  */
-function splitCsv(text: string): SplitResult {
-  const records: RawRecord[] = [];
+function readCsvRecord(text: string, start: number, startLine: number, fields: string[] | null): CsvRecord {
   const n = text.length;
-  let i = 0;
-  let line = 1;
-  /** Consumes one line break at position k (CRLF counts once); returns the position after it. */
+  let i = start;
+  let line = startLine;
+  let fieldCount = 0;
+  let blank = true;
   const lineBreak = (k: number): number => {
     line++;
     return text.charCodeAt(k) === CR && text.charCodeAt(k + 1) === LF ? k + 2 : k + 1;
   };
-  while (i < n) {
-    const recordLine = line;
-    const fields: string[] = [];
-    let onlyBlank = true;
-    for (;;) {
-      let j = i;
-      while (j < n && (text.charCodeAt(j) === SPACE || text.charCodeAt(j) === TAB)) j++;
-      if (j < n && text.charCodeAt(j) === QUOTE) {
-        onlyBlank = false;
-        const quoteLine = line;
-        let value = "";
-        j++;
-        for (;;) {
-          const close = text.indexOf('"', j);
-          if (close < 0) {
-            const message =
-              quoteLine === recordLine
-                ? "a quoted field opened on this line is not closed before the end of the file"
-                : `the record starting on this line has a quoted field opened on line ${quoteLine} that is not closed before the end of the file`;
-            return { records, error: { line: recordLine, message } };
-          }
-          for (let k = j; k < close; k++) {
-            const code = text.charCodeAt(k);
-            if (code === LF || (code === CR && text.charCodeAt(k + 1) !== LF)) line++;
-          }
-          value += text.slice(j, close);
-          if (text.charCodeAt(close + 1) === QUOTE) {
-            value += '"';
-            j = close + 2;
-            continue;
-          }
-          j = close + 1;
-          break;
+  for (;;) {
+    let j = i;
+    while (j < n && (text.charCodeAt(j) === SPACE || text.charCodeAt(j) === TAB)) j++;
+    if (j < n && text.charCodeAt(j) === QUOTE) {
+      blank = false;
+      const quoteLine = line;
+      let value = "";
+      j++;
+      for (;;) {
+        const close = text.indexOf('"', j);
+        if (close < 0) {
+          const message =
+            quoteLine === startLine
+              ? "a quoted field opened on this line is not closed before the end of the file"
+              : `the record starting on this line has a quoted field opened on line ${quoteLine} that is not closed before the end of the file`;
+          return { next: n, line, fieldCount, blank, error: { line: startLine, message } };
         }
-        while (j < n && (text.charCodeAt(j) === SPACE || text.charCodeAt(j) === TAB)) j++;
-        fields.push(value);
-        const after = text.charCodeAt(j);
-        if (j < n && after === COMMA) {
-          i = j + 1;
+        for (let k = j; k < close; k++) {
+          const code = text.charCodeAt(k);
+          if (code === LF || (code === CR && text.charCodeAt(k + 1) !== LF)) line++;
+        }
+        if (fields !== null) value += text.slice(j, close);
+        if (text.charCodeAt(close + 1) === QUOTE) {
+          if (fields !== null) value += '"';
+          j = close + 2;
           continue;
         }
-        if (j >= n || after === CR || after === LF) {
-          i = j >= n ? n : lineBreak(j);
-          break;
-        }
-        return { records, error: { line, message: "a closing quote must be followed by a comma or the end of the line" } };
+        j = close + 1;
+        break;
       }
-      let k = j;
-      while (k < n) {
-        const code = text.charCodeAt(k);
-        if (code === COMMA || code === CR || code === LF) break;
-        if (code === QUOTE) {
-          return { records, error: { line, message: 'a double quote inside an unquoted field: put the whole field in quotes and write the quote twice ("")' } };
-        }
-        k++;
-      }
-      if (k > j) onlyBlank = false;
-      fields.push(text.slice(i, k));
-      if (k < n && text.charCodeAt(k) === COMMA) {
-        onlyBlank = false;
-        i = k + 1;
+      while (j < n && (text.charCodeAt(j) === SPACE || text.charCodeAt(j) === TAB)) j++;
+      fieldCount++;
+      if (fields !== null) fields.push(value);
+      const after = text.charCodeAt(j);
+      if (j < n && after === COMMA) {
+        i = j + 1;
         continue;
       }
-      i = k >= n ? n : lineBreak(k);
-      break;
+      if (j >= n || after === CR || after === LF) {
+        return { next: j >= n ? n : lineBreak(j), line, fieldCount, blank, error: null };
+      }
+      return { next: n, line, fieldCount, blank, error: { line, message: "a closing quote must be followed by a comma or the end of the line" } };
     }
-    if (onlyBlank) continue;
-    const first = fields[0] ?? "";
-    records.push({ fields, line: recordLine, comment: first.trimStart().startsWith("#") });
+    let k = j;
+    while (k < n) {
+      const code = text.charCodeAt(k);
+      if (code === COMMA || code === CR || code === LF) break;
+      if (code === QUOTE) {
+        return {
+          next: n,
+          line,
+          fieldCount,
+          blank,
+          error: { line, message: 'a double quote inside an unquoted field: put the whole field in quotes and write the quote twice ("")' },
+        };
+      }
+      k++;
+    }
+    if (k > j) blank = false;
+    fieldCount++;
+    if (fields !== null) fields.push(text.slice(i, k));
+    if (k < n && text.charCodeAt(k) === COMMA) {
+      blank = false;
+      i = k + 1;
+      continue;
+    }
+    return { next: k >= n ? n : lineBreak(k), line, fieldCount, blank, error: null };
   }
-  return { records, error: null };
 }
 
-/** Whitespace-table splitter: one record per physical line, fields split on runs of spaces and tabs. */
-function splitWhitespace(text: string): SplitResult {
-  const records: RawRecord[] = [];
-  let line = 0;
-  for (const physical of text.split(/\r\n|\n|\r/)) {
-    line++;
-    const trimmed = physical.trim();
-    if (trimmed === "") continue;
-    if (trimmed.startsWith("#")) continue;
-    records.push({ fields: trimmed.split(/[ \t]+/), line, comment: false });
+/** Finds every record of a CSV text (blank lines skipped); stops at the first quoting error. */
+function indexCsv(text: string): RecordIndex {
+  const offsets = new IntList();
+  const lines = new IntList();
+  const counts = new IntList();
+  let i = 0;
+  let line = 1;
+  while (i < text.length) {
+    const record = readCsvRecord(text, i, line, null);
+    if (record.error !== null) return { offsets, lines, counts, error: record.error };
+    if (!record.blank) {
+      let first = i;
+      while (text.charCodeAt(first) === SPACE || text.charCodeAt(first) === TAB) first++;
+      offsets.push(i);
+      lines.push(line);
+      counts.push(text.charCodeAt(first) === HASH ? -1 : record.fieldCount);
+    }
+    i = record.next;
+    line = record.line;
   }
-  return { records, error: null };
+  return { offsets, lines, counts, error: null };
+}
+
+/** End of the physical line starting at `start` (the position of its CR or LF, or the end). */
+function lineEnd(text: string, start: number): number {
+  let k = start;
+  while (k < text.length) {
+    const code = text.charCodeAt(k);
+    if (code === LF || code === CR) return k;
+    k++;
+  }
+  return k;
+}
+
+/** Position after the line break at `end` (CRLF counts once). */
+const afterBreak = (text: string, end: number): number => (text.charCodeAt(end) === CR && text.charCodeAt(end + 1) === LF ? end + 2 : end + 1);
+
+/** Fields of one whitespace-table line: split on runs of spaces and tabs. */
+const whitespaceFields = (text: string, start: number): string[] => text.slice(start, lineEnd(text, start)).trim().split(/[ \t]+/);
+
+/** Finds every line of a whitespace table that is neither blank nor a `#` comment. */
+function indexWhitespace(text: string): RecordIndex {
+  const offsets = new IntList();
+  const lines = new IntList();
+  const counts = new IntList();
+  let i = 0;
+  let line = 1;
+  while (i < text.length) {
+    const end = lineEnd(text, i);
+    let first = i;
+    while (first < end && (text.charCodeAt(first) === SPACE || text.charCodeAt(first) === TAB)) first++;
+    if (first < end && text.charCodeAt(first) !== HASH) {
+      let fields = 0;
+      let inField = false;
+      for (let k = first; k < end; k++) {
+        const space = text.charCodeAt(k) === SPACE || text.charCodeAt(k) === TAB;
+        if (!space && !inField) fields++;
+        inField = !space;
+      }
+      offsets.push(i);
+      lines.push(line);
+      counts.push(fields);
+    }
+    line++;
+    i = end >= text.length ? text.length : afterBreak(text, end);
+  }
+  return { offsets, lines, counts, error: null };
 }
 
 /** The first line that is neither blank nor a `#` line has no comma and no double quote. */
 function looksWhitespaceSeparated(text: string): boolean {
   let start = 0;
   while (start < text.length) {
-    let end = text.indexOf("\n", start);
-    if (end < 0) end = text.length;
-    const carriage = text.indexOf("\r", start);
-    if (carriage >= 0 && carriage < end) end = carriage;
+    const end = lineEnd(text, start);
     const physical = text.slice(start, end).trim();
     if (physical !== "" && !physical.startsWith("#")) return !physical.includes(",") && !physical.includes('"');
-    start = end + 1;
+    start = end >= text.length ? text.length : afterBreak(text, end);
   }
   return false;
 }
@@ -243,7 +326,7 @@ class TableRow implements CsvRow {
  *   wrong number of fields or a comment are left out of a returned table)
  * @example
  * readCsvTable(Buffer.from("site,year\nA,1750\n"), ["site", "year"], new ProblemList("events.csv"))
- *   ?.rows[0]?.field("year"); // => "1750"
+ *   ?.rowCount; // => 1
  */
 export function readCsvTable(bytes: Uint8Array, required: readonly string[], problems: ProblemList, options: TableOptions = {}): CsvTable | null {
   if (bytes.length === 0) {
@@ -255,12 +338,13 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
     problems.add(lineOfByte(bytes, nul), "the file is not text (found a NUL byte)");
     return null;
   }
-  const badLine = firstInvalidUtf8Line(bytes);
-  if (badLine !== null) {
-    problems.add(badLine, "the file is not UTF-8 text (found an invalid byte sequence)");
+  let text: string;
+  try {
+    text = utf8.decode(bytes);
+  } catch {
+    problems.add(firstInvalidUtf8Line(bytes), "the file is not UTF-8 text (found an invalid byte sequence)");
     return null;
   }
-  let text = utf8.decode(bytes);
   if (text.startsWith("\uFEFF")) text = text.slice(1);
   if (text.trim() === "") {
     problems.add(null, "the file is empty");
@@ -268,55 +352,73 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
   }
 
   const layout: TableLayout = options.whitespace === true && looksWhitespaceSeparated(text) ? "whitespace" : "comma";
-  const { records, error } = layout === "whitespace" ? splitWhitespace(text) : splitCsv(text);
-  if (error !== null) {
+  const index = layout === "whitespace" ? indexWhitespace(text) : indexCsv(text);
+  if (index.error !== null) {
     // After a quoting error the start of the following records is unknown: report this one only.
-    problems.add(error.line, error.message);
+    problems.add(index.error.line, index.error.message);
     return null;
   }
+  const fieldsAt = (record: number): string[] => {
+    const offset = index.offsets.at(record);
+    if (layout === "whitespace") return whitespaceFields(text, offset);
+    const fields: string[] = [];
+    readCsvRecord(text, offset, index.lines.at(record), fields);
+    return fields;
+  };
 
-  const dataRows: RawRecord[] = [];
-  for (const row of records) {
-    if (row.comment) problems.add(row.line, `comment lines are not allowed (found ${quote(row.fields.join(","))})`);
-    else dataRows.push(row);
+  let headerRecord = -1;
+  for (let record = 0; record < index.offsets.length; record++) {
+    if (index.counts.at(record) < 0) {
+      const shown = fieldsAt(record).join(",");
+      problems.add(index.lines.at(record), `comment lines are not allowed (found ${quote(shown)})`);
+    } else if (headerRecord < 0) {
+      headerRecord = record;
+    }
   }
-  const header = dataRows.shift();
-  if (header === undefined) {
+  if (headerRecord < 0) {
     problems.add(null, "the file has no header row");
     return null;
   }
-  const columns = header.fields.map((name) => name.trim());
+  const headerLine = index.lines.at(headerRecord);
+  const columns = fieldsAt(headerRecord).map((name) => name.trim());
   const seen = new Map<string, number>();
   let headerOk = true;
   columns.forEach((name, position) => {
     if (name === "") {
-      problems.add(header.line, `column ${position + 1} of the header has no name`);
+      problems.add(headerLine, `column ${position + 1} of the header has no name`);
       headerOk = false;
     } else if (seen.has(name)) {
-      problems.add(header.line, `column ${quote(name)} appears twice in the header`);
+      problems.add(headerLine, `column ${quote(name)} appears twice in the header`);
       headerOk = false;
     }
     seen.set(name, position);
   });
   for (const name of required) {
     if (!seen.has(name)) {
-      problems.add(header.line, `missing column "${name}" (found columns: ${listColumns(columns)})`);
+      problems.add(headerLine, `missing column "${name}" (found columns: ${listColumns(columns)})`);
       headerOk = false;
     }
   }
   if (!headerOk) return null;
 
-  const rows: CsvRow[] = [];
-  for (const row of dataRows) {
-    const short = layout === "whitespace" && row.fields.length < columns.length;
-    if (row.fields.length !== columns.length && !short) {
-      problems.add(row.line, `expected ${columns.length} fields as in the header, found ${row.fields.length}`);
-      continue;
-    }
-    rows.push(new TableRow(row.line, row.fields, seen));
+  // A row is kept when it has as many fields as the header (a whitespace row may stop early).
+  const kept = new IntList();
+  for (let record = headerRecord + 1; record < index.offsets.length; record++) {
+    const count = index.counts.at(record);
+    if (count < 0) continue;
+    if (count === columns.length || (layout === "whitespace" && count < columns.length)) kept.push(record);
+    else problems.add(index.lines.at(record), `expected ${columns.length} fields as in the header, found ${count}`);
   }
-  if (rows.length === 0 && problems.size === 0) problems.add(null, "the file has a header but no data rows");
-  return { columns, headerLine: header.line, rows, layout };
+  if (kept.length === 0 && problems.size === 0) problems.add(null, "the file has a header but no data rows");
+  const rows: Iterable<CsvRow> = {
+    *[Symbol.iterator]() {
+      for (let k = 0; k < kept.length; k++) {
+        const record = kept.at(k);
+        yield new TableRow(index.lines.at(record), fieldsAt(record), seen);
+      }
+    },
+  };
+  return { columns, headerLine, rows, rowCount: kept.length, layout };
 }
 
 /**

@@ -21,7 +21,8 @@ interface LoadedFile {
 }
 
 const MIB = 1024 * 1024;
-const mebibytes = (bytes: number): string => `${(bytes / MIB).toFixed(bytes < 10 * MIB ? 1 : 0)} MiB`;
+const bytesText = (bytes: number): string => bytes.toLocaleString("en-US");
+const limitText = (limit: number): string => `${limit / MIB} MiB (${bytesText(limit)} bytes)`;
 
 /** What a file system entry that is not a regular file is, for a message. */
 function kindOf(info: { isDirectory(): boolean; isFIFO(): boolean; isCharacterDevice(): boolean; isBlockDevice(): boolean; isSocket(): boolean }): string {
@@ -66,7 +67,7 @@ async function readInputFile(absolute: string, problems: ProblemList, limit: num
       return true;
     }
     if (entry.size > limit) {
-      problems.add(null, `the file is too large: ${mebibytes(entry.size)} (at most ${mebibytes(limit)} is read)`);
+      problems.add(null, `the file is too large: ${bytesText(entry.size)} bytes; at most ${limitText(limit)} is read`);
       return true;
     }
     return false;
@@ -89,7 +90,7 @@ async function readInputFile(absolute: string, problems: ProblemList, limit: num
       filled += bytesRead;
       if (filled === buffer.length) {
         if (filled > limit) {
-          problems.add(null, `the file is too large: more than ${mebibytes(limit)} (at most ${mebibytes(limit)} is read)`);
+          problems.add(null, `the file is too large: it grew past the limit while being read; at most ${limitText(limit)} is read`);
           return null;
         }
         break;

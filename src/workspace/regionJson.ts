@@ -203,7 +203,7 @@ function knownKeysAt(path: readonly PropertyKey[]): readonly string[] {
 function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
   let value = root;
   for (const key of path) {
-    if (value === null || typeof value !== "object") return undefined;
+    if (value === null || typeof value !== "object" || !Object.hasOwn(value, key)) return undefined;
     value = (value as Record<PropertyKey, unknown>)[key];
   }
   return value;

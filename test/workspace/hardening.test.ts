@@ -127,16 +127,16 @@ describe("data files must be regular files of a bounded size", () => {
     const folder = withIndexFile("huge.csv");
     writeFileSync(path.join(folder, "huge.csv"), "year,ENSO\n");
     truncateSync(path.join(folder, "huge.csv"), MAX_DATA_FILE_BYTES + 1);
-    expect((await problemsOf(folder))[0]?.message).toBe("the file is too large: 64 MiB (at most 64 MiB is read)");
+    expect((await problemsOf(folder))[0]?.message).toBe("the file is too large: 33,554,433 bytes; at most 32 MiB (33,554,432 bytes) is read");
     writeFileSync(path.join(folder, "huge.csv"), "year,ENSO\n");
     truncateSync(path.join(folder, "huge.csv"), 200 * 1024 * 1024);
-    expect((await problemsOf(folder))[0]?.message).toBe("the file is too large: 200 MiB (at most 64 MiB is read)");
+    expect((await problemsOf(folder))[0]?.message).toBe("the file is too large: 209,715,200 bytes; at most 32 MiB (33,554,432 bytes) is read");
   });
 
   it("a region.json over 1 MiB is refused", async () => {
     const folder = regionWith(() => null, "{}");
     truncateSync(path.join(folder, "region.json"), 2 * 1024 * 1024);
-    expect((await problemsOf(folder))[0]?.message).toBe("the file is too large: 2.0 MiB (at most 1.0 MiB is read)");
+    expect((await problemsOf(folder))[0]?.message).toBe("the file is too large: 2,097,152 bytes; at most 1 MiB (1,048,576 bytes) is read");
   });
 
   it("a problem echoes only a short excerpt of a bad line, with control characters escaped", async () => {
