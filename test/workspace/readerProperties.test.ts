@@ -12,8 +12,13 @@ import type { IndexSettings } from "../../src/workspace/types.js";
 const valid = path.resolve("test/fixtures/regions/valid");
 const SITES = readFileSync(path.join(valid, "fire-sites.csv"), "utf8");
 const INDICES = readFileSync(path.join(valid, "indices.csv"), "utf8");
+const WIDE = readFileSync(path.resolve("test/fixtures/regions/layout-wide/nao-wide.csv"), "utf8");
+const TEXT_TABLE = readFileSync(path.resolve("test/fixtures/regions/layout-text-codes/nao.txt"), "utf8");
+const NAO_CODED: IndexSettings = { name: "NAO", file: "n.txt", column: "NAO", months: "Dec-Mar", phases: { kind: "terciles", labels: ["a", "b", "c"] }, missing: [-99.99] };
 const NAO: IndexSettings = { name: "NAO", file: "n.csv", column: "NAO", months: "Dec-Mar", phases: { kind: "terciles", labels: ["a", "b", "c"] } };
 const ENSO: IndexSettings = { name: "ENSO", file: "i.csv", column: "ENSO", months: null, phases: { kind: "terciles", labels: ["a", "b", "c"] } };
+
+const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 
 /** A text mutation: delete, duplicate or alter one character, or swap two lines. */
 const mutation = fc.oneof(
@@ -53,6 +58,7 @@ function readAll(bytes: Uint8Array): void {
     (p) => readModernCsv(bytes, p),
     (p) => readIndexCsv(bytes, [ENSO], p, "f.csv"),
     (p) => readIndexCsv(bytes, [NAO], p, "f.csv"),
+    (p) => readIndexCsv(bytes, [NAO_CODED], p, "f.csv"),
   ];
   for (const reader of readers) {
     const problems = new ProblemList("f.csv");
@@ -72,7 +78,7 @@ describe("CSV readers never crash (fast-check)", () => {
 
   it("random mutations of a valid fire-sites.csv and indices.csv give problems, never another exception", () => {
     fc.assert(
-      fc.property(fc.constantFrom(SITES, INDICES), fc.array(mutation, { minLength: 1, maxLength: 4 }), (text, mutations) =>
+      fc.property(fc.constantFrom(SITES, INDICES, WIDE, TEXT_TABLE), fc.array(mutation, { minLength: 1, maxLength: 4 }), (text, mutations) =>
         readAll(Buffer.from(mutate(text, mutations), "utf8")),
       ),
       { numRuns: 400, seed: 42 },
@@ -105,6 +111,55 @@ describe("loadWorkspace(root) never crashes on a mutated region (fast-check)", (
         }
       }),
       { numRuns: 60, seed: 7 },
+    );
+  });
+});
+
+describe("wide and whitespace index tables (fast-check)", () => {
+  it("a mutated wide or whitespace table gives a series or problems on real lines; a kept series has the table's months", () => {
+    fc.assert(
+      fc.property(fc.constantFrom(WIDE, TEXT_TABLE), fc.array(mutation, { minLength: 1, maxLength: 3 }), (text, mutations) => {
+        const mutated = mutate(text, mutations);
+        const problems = new ProblemList("f.txt");
+        const result = readIndexCsv(Buffer.from(mutated, "utf8"), [NAO_CODED], problems, "f.txt");
+        const lines = mutated.split(/\r\n|\n|\r/).length;
+        for (const problem of problems.toArray()) {
+          expect(problem.line === null || (problem.line >= 1 && problem.line <= lines)).toBe(true);
+          expect(problem.message).not.toMatch(/[\u0000-\u0008\u000b-\u001f\u007f]/);
+        }
+        if (problems.size === 0) {
+          const series = result.series[0];
+          expect(series?.monthly?.length).toBeGreaterThan(0);
+          for (const month of series?.monthly ?? []) expect(month.value === null || Number.isFinite(month.value)).toBe(true);
+        } else {
+          expect(result.series).toEqual([]);
+        }
+      }),
+      { numRuns: 400, seed: 20261203 },
+    );
+  });
+
+  it("writing the same numbers wide, long or as a whitespace table gives the same series (fast-check)", () => {
+    const cell = fc.option(fc.integer({ min: -300, max: 300 }).map((n) => n / 100), { nil: null, freq: 6 });
+    fc.assert(
+      fc.property(fc.integer({ min: 1800, max: 2000 }), fc.array(fc.array(cell, { minLength: 12, maxLength: 12 }), { minLength: 1, maxLength: 6 }), fc.constantFrom("\n", "\r\n"), (first, years, eol) => {
+        const text = (v: number | null): string => (v === null ? "" : String(v));
+        const long = `year,month,NAO${eol}${years.flatMap((row, y) => row.map((v, m) => `${first + y},${m + 1},${text(v)}`)).join(eol)}${eol}`;
+        const wide = `Year,${MONTHS.join(",")}${eol}${years.map((row, y) => `${first + y},${row.map(text).join(",")}`).join(eol)}${eol}`;
+        const spaced = `# invented${eol}YEAR ${MONTHS.map((_, m) => m + 1).join(" ")}${eol}${years
+          .map((row, y) => `${first + y} ${row.map((v) => (v === null ? "-99.99" : String(v).replace("-", "\u2212"))).join("   ")}`)
+          .join(eol)}${eol}`;
+        const readWith = (content: string, settings: IndexSettings) => {
+          const problems = new ProblemList("f");
+          const result = readIndexCsv(Buffer.from(content, "utf8"), [settings], problems, "f");
+          expect(problems.toArray()).toEqual([]);
+          return result.series;
+        };
+        const expected = readWith(long, NAO);
+        expect(readWith(wide, NAO)).toEqual(expected);
+        expect(readWith(spaced, NAO_CODED)).toEqual(expected);
+      }),
+      { numRuns: 200, seed: 777 },
     );
   });
 });
