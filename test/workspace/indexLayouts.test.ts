@@ -106,4 +106,18 @@ describe("readIndexCsv(bytes, indices, problems, file): layouts", () => {
     expect(read("year,NAO\n1900,0.5\n1901,-1.2\n1902,-99\n1903,0.8\n", [YEARLY]).problems[0]?.message).toContain("far outside the rest of the series, whose median size is 1"); // median of 0.5, 0.8, 1.2, 99
     expect(read("year,P\n1900,150\n1901,210\n1902,99\n1903,400\n", [{ ...YEARLY, name: "P", column: "P" }]).problems).toEqual([]);
   });
+
+  it("reads the example table of the README's 'Bring your own region' as published", () => {
+    const table = [
+      "# Invented monthly index, standardized; missing = -99.99",
+      "YEAR   JAN    FEB    MAR    APR    MAY    JUN    JUL    AUG    SEP    OCT    NOV    DEC",
+      "2025   0.41  \u22120.12   0.88   0.10  -0.35   0.22   0.05  -0.61   0.33   0.90   1.02   0.64",
+      "2026   0.73   0.15 -99.99 -99.99 -99.99 -99.99 -99.99 -99.99 -99.99 -99.99 -99.99 -99.99",
+    ].join("\n");
+    const result = read(table, [{ ...NAO, missing: [-99.99] }]);
+    expect(result.problems).toEqual([]);
+    expect(result.layout).toBe("wide");
+    expect(result.series[0]?.monthly?.slice(0, 3).map((m) => m.value)).toEqual([0.41, -0.12, 0.88]);
+    expect(result.series[0]?.monthly?.filter((m) => m.value === null)).toHaveLength(10);
+  });
 });
