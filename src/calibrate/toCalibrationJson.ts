@@ -8,9 +8,10 @@ export const CALIBRATION_SCHEMA = "firephase.calibration/1";
  * byte-identical output. A statistic that cannot be computed is null with a `reason` beside it.
  */
 export function toCalibrationJson(calibration: Calibration): Record<string, unknown> {
-  const indices: Record<string, unknown> = {};
+  // Built with Object.fromEntries (own properties), so an index named like a built-in property stays a plain key.
+  const indexEntries: [string, unknown][] = [];
   for (const index of calibration.indices) {
-    indices[index.name] = {
+    indexEntries.push([index.name, {
       rule: index.definition.rule,
       cuts: index.definition.cuts,
       labels: index.definition.labels,
@@ -47,8 +48,9 @@ export function toCalibrationJson(calibration: Calibration): Record<string, unkn
       stability: index.stability,
       curve: index.curve === undefined || index.curve === null ? null : curveJson(index.curve),
       ...(index.curve === undefined || index.curve === null ? { curveReason: index.curveReason ?? "the response curve was not computed" } : {}),
-    };
+    }]);
   }
+  const indices = Object.fromEntries(indexEntries);
   return {
     schema: CALIBRATION_SCHEMA,
     region: calibration.region,
@@ -119,10 +121,9 @@ function curveJson(curve: ResponseCurve): Record<string, unknown> {
 
 /** JSON form of the modern era (`modern`), indices keyed by name, in a fixed key order. */
 function modernJson(modern: ModernEra): Record<string, unknown> {
-  const indices: Record<string, unknown> = {};
-  for (const index of modern.indices) {
-    indices[index.name] = { years: index.years, phases: index.phases, homogeneity: index.homogeneity };
-  }
+  const indices = Object.fromEntries(
+    modern.indices.map((index) => [index.name, { years: index.years, phases: index.phases, homogeneity: index.homogeneity }]),
+  );
   return {
     measure: modern.measure,
     period: modern.period,

@@ -1,15 +1,18 @@
 import { classifyPhase, isNearBoundary } from "../climate/phaseDefinition.js";
 import { valuesByYear } from "../calibrate/activityByYear.js";
 import { buildTrainingSet, type IndexValues } from "../calibrate/buildTrainingSet.js";
+import { curveForecast } from "../calibrate/curveForecast.js";
 import { forecastCell } from "../calibrate/forecastCell.js";
 import { proportionEstimate } from "../calibrate/proportionEstimate.js";
 import type { AssociationRank } from "../calibrate/rankIndicesByAssociation.js";
 import type { Calibration } from "../calibrate/types.js";
 import { runHindcast } from "../hindcast/runHindcast.js";
-import type { Workspace } from "../workspace/types.js";
+import type { IndexSettings, Workspace } from "../workspace/types.js";
 import { analogYears } from "./analogYears.js";
 import { comparedWithBase, formatPercent, formatPercentRange } from "./describeChance.js";
-import type { AnalogYear, CurrentPhase, Outlook } from "./types.js";
+import { selectionAwareInterval, selectionNote } from "./selectionAwareInterval.js";
+import { strengthNote } from "./strengthNote.js";
+import type { AnalogYear, CurrentPhase, CurveOdds, Outlook } from "./types.js";
 
 export interface OutlookRequest {
   /** Current seasonal value per index name (only known index names; validated by the caller). */
@@ -46,6 +49,9 @@ export interface OutlookValueDetail {
  */
 export function buildOutlook(workspace: Workspace, calibration: Calibration, request: OutlookRequest): Outlook {
   const { settings } = workspace;
+  // The near-boundary margin is a share of the index's standard deviation (methods.nearBoundarySd, default 0.1).
+  const nearBoundarySd = Number.isFinite(settings.methods.nearBoundarySd) ? settings.methods.nearBoundarySd : 0.1;
+  const nearBoundaryMargin = (sd: number): number => (Number.isFinite(sd) && sd > 0 ? nearBoundarySd * sd : 0);
   const method = calibration.interval;
   const indexValues: IndexValues = new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)]));
   const training = buildTrainingSet({
@@ -62,11 +68,14 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const currentPhase = new Map<string, number>();
   const currentValue = new Map<string, number>();
   for (const index of calibration.indices) {
-    const value = request.values[index.name];
-    if (value === undefined) {
+    // Own properties only: an index named like a built-in object property ("constructor") must not
+    // read an inherited value.
+    const given = Object.hasOwn(request.values, index.name) ? request.values[index.name] : undefined;
+    if (given === undefined || !Number.isFinite(given)) {
       missing.push(index.name);
       continue;
     }
+    const value = given;
     const phase = classifyPhase(value, index.definition.cuts);
     const z = index.sd > 0 ? (value - index.mean) / index.sd : NaN;
     if (Number.isFinite(z) && Math.abs(z) > 5) {
@@ -75,13 +84,31 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
         message: `${index.name} = ${value} is ${Math.abs(z).toFixed(1)} standard deviations from its calibration mean: check the value; no past year is like it`,
       });
     }
+    const detail = request.details !== undefined && Object.hasOwn(request.details, index.name) ? request.details[index.name] : undefined;
+    const source =
+      detail?.source ?? (request.sources !== undefined && Object.hasOwn(request.sources, index.name) ? request.sources[index.name] : undefined) ?? "given";
+    const provisional = detail?.provisional ?? false;
+    const months = detail?.months ?? [];
+    const window = detail?.window ?? indexWindow(settings.indices, index.name);
+    if (provisional) {
+      warnings.push({
+        code: "value-provisional",
+        message: `${index.name} = ${value} is provisional: computed from ${months.length === 0 ? "part" : months.join(", ")} of its ${window ?? "season"} window, which is not complete yet; the odds may change when it is`,
+      });
+    }
+    const margin = nearBoundaryMargin(index.sd);
     current.push({
       index: index.name,
       value,
       label: index.definition.labels[phase] ?? String(phase),
-      nearBoundary: isNearBoundary(value, index.definition.cuts, settings.methods.nearBoundaryMargin),
+      nearBoundary: isNearBoundary(value, index.definition.cuts, margin),
       z: Number.isFinite(z) ? z : null,
-      source: request.sources?.[index.name] ?? "given",
+      ...(Number.isFinite(z) ? {} : { zReason: "the index has no spread over the calibration years (standard deviation 0 or undefined), so no z-score" }),
+      source,
+      provisional,
+      months,
+      window,
+      nearBoundaryMargin: margin,
     });
     currentPhase.set(index.name, phase);
     currentValue.set(index.name, value);
@@ -154,7 +181,8 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     if (calibrated === undefined) return;
     const value = currentValue.get(name) as number;
     const cuts = calibrated.definition.cuts;
-    if (!isNearBoundary(value, cuts, settings.methods.nearBoundaryMargin)) return;
+    const margin = nearBoundaryMargin(calibrated.sd);
+    if (!isNearBoundary(value, cuts, margin)) return;
     const nearest = cuts.reduce((best, cut) => (Math.abs(cut - value) < Math.abs(best - value) ? cut : best), cuts[0] as number);
     const phase = currentPhase.get(name) as number;
     const step = 1e-9 * Math.max(1, Math.abs(nearest));
@@ -168,21 +196,102 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     const alternative = forecastCell(training, shifted, ranking, jointMinYears, jointMaxQ);
     warnings.push({
       code: "basis-near-boundary",
-      message: `${name} (${value}) is within ${settings.methods.nearBoundaryMargin} of its ${nearest.toFixed(2)} phase boundary: had it been ${labelOf(name, otherPhase)}, the chance would be ${probabilityWords(alternative.fireYears, alternative.years.length)}`,
+      message: `${name} (${value}) is within ${formatMargin(margin)} (${nearBoundarySd} of its standard deviation) of its ${nearest.toFixed(2)} phase boundary: had it been ${labelOf(name, otherPhase)}, the chance would be ${probabilityWords(alternative.fireYears, alternative.years.length)}`,
     });
   });
   const n = cell.years.length;
-  const fireYear = {
+  const phaseOdds = {
     ...proportionEstimate(cell.fireYears, n, method),
     basis,
     basisIndices: cell.indices,
     years: n,
     fireYears: cell.fireYears,
   };
-  const fireYearWithComparison = { ...fireYear, comparedWithBase: comparedWithBase(fireYear, calibration.baseRate) };
   if (n > 0 && n < settings.methods.smallSampleYears) {
     warnings.push({ code: "small-basis", message: `the odds rest on only ${n} past years: treat them as rough` });
   }
+
+  // The curve rule: the response curve of the index the phase rule selects, read at this season's value.
+  const response: "phase" | "curve" = settings.methods.response === "curve" ? "curve" : "phase";
+  const curveResult = curveForecast(training, indexValues, cell, currentValue);
+  const curveOdds: CurveOdds | null =
+    curveResult.forecast === null
+      ? null
+      : {
+          index: curveResult.forecast.index,
+          value: curveResult.forecast.reading.value,
+          readAt: curveResult.forecast.reading.readAt,
+          beyondRange: curveResult.forecast.reading.beyondRange,
+          estimate: curveResult.forecast.reading.estimate,
+          lower: curveResult.forecast.reading.lower,
+          upper: curveResult.forecast.reading.upper,
+          form: curveResult.forecast.reading.form,
+          band: curveResult.forecast.curve.band,
+          range: curveResult.forecast.curve.range,
+          years: curveResult.forecast.curve.years,
+          fireYears: curveResult.forecast.curve.fireYears,
+        };
+  if (curveOdds !== null && curveOdds.beyondRange !== null) {
+    const side = curveOdds.beyondRange === "above" ? "above the largest" : "below the smallest";
+    warnings.push({
+      code: "curve-beyond-range",
+      message: `${curveOdds.index} = ${curveOdds.value} is ${side} calibration value (${curveOdds.readAt}): the response curve is read at ${curveOdds.readAt}, not beyond the record`,
+    });
+  }
+  const curveHeadline = response === "curve" && curveOdds !== null;
+  if (response === "curve" && curveOdds === null) {
+    warnings.push({
+      code: "curve-not-available",
+      message: `the response curve could not be read (${curveResult.reason ?? "no curve"}), so the headline odds come from the phases`,
+    });
+  }
+  const curveBasis =
+    curveOdds === null
+      ? ""
+      : `the ${curveOdds.index} response curve read at ${curveOdds.readAt}${curveOdds.beyondRange === null ? "" : ` (this season's ${curveOdds.value} is beyond the calibration range)`}: a logistic regression of high-fire year on ${curveOdds.index} over ${curveOdds.years} calibration years, ${curveOdds.index} being the index the phase rule selects (${basis})`;
+  const headlineEstimate = curveHeadline && curveOdds !== null
+    ? { estimate: curveOdds.estimate, lower: curveOdds.lower, upper: curveOdds.upper }
+    : proportionEstimate(cell.fireYears, n, method);
+  const fireYear = {
+    ...headlineEstimate,
+    basis: curveHeadline ? curveBasis : basis,
+    basisIndices: curveHeadline && curveOdds !== null ? [curveOdds.index] : cell.indices,
+    years: curveHeadline && curveOdds !== null ? curveOdds.years : n,
+    fireYears: curveHeadline && curveOdds !== null ? curveOdds.fireYears : cell.fireYears,
+  };
+
+  // Selection-aware interval: the whole rule bootstrapped in blocks of years (event definition fixed).
+  const selection = selectionAwareInterval({
+    years: calibration.years,
+    activity: calibration.activity,
+    indexValues,
+    indexSettings: settings.indices,
+    isFireYear: training.isFireYear,
+    categories: training.categories,
+    top: settings.fireYears.top,
+    measure: settings.fireYears.measure,
+    current: currentValue,
+    jointMinYears,
+    jointMaxQ,
+    response: curveHeadline ? "curve" : "phase",
+    blockYears: settings.methods.blockYears,
+    resamples: Number.isInteger(settings.methods.bootstrapResamples) && settings.methods.bootstrapResamples > 0 ? settings.methods.bootstrapResamples : 999,
+    seed: settings.seed,
+  });
+  const note = selectionNote(fireYear, selection.interval, formatPercentRange);
+  const strength = curveOdds === null ? null : strengthNote(curveOdds, calibration, training, indexValues, currentPhase);
+  const fireYearWithComparison = {
+    ...fireYear,
+    comparedWithBase: comparedWithBase(fireYear, calibration.baseRate),
+    response: curveHeadline ? ("curve" as const) : ("phase" as const),
+    phaseOdds,
+    curveOdds,
+    ...(curveOdds === null ? { curveReason: curveResult.reason ?? "no curve" } : {}),
+    selectionInterval: selection.interval,
+    ...(selection.interval === null ? { selectionReason: selection.reason } : {}),
+    selectionNote: note,
+    strengthNote: strength,
+  };
   const categories = {
     below: proportionEstimate(cell.categories.below, n, method),
     near: proportionEstimate(cell.categories.near, n, method),
@@ -210,8 +319,10 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const nearest = analogYears(currentValue, moments, candidates, settings.methods.analogs);
   const fireSet = new Set(calibration.fireYears.years);
   const analogs: AnalogYear[] = nearest.map(({ year, distance }) => {
-    const values: Record<string, number> = {};
-    for (const name of currentValue.keys()) values[name] = indexValues.get(name)?.get(year) as number;
+    // Own properties only (Object.fromEntries), whatever the index names are.
+    const values: Record<string, number> = Object.fromEntries(
+      [...currentValue.keys()].map((name) => [name, indexValues.get(name)?.get(year) as number]),
+    );
     return {
       year,
       distance,
@@ -259,4 +370,14 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     hindcast,
     warnings,
   };
+}
+
+/** The season window of an index ("Dec-Mar"), or null for a yearly file. */
+function indexWindow(indices: readonly IndexSettings[], name: string): string | null {
+  return indices.find((index) => index.name === name)?.months ?? null;
+}
+
+/** A margin in index units, to two significant digits. */
+function formatMargin(margin: number): string {
+  return Number(margin.toPrecision(2)).toString();
 }

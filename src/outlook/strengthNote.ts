@@ -1,0 +1,68 @@
+import type { IndexValues, TrainingSet } from "../calibrate/buildTrainingSet.js";
+import type { Calibration } from "../calibrate/types.js";
+import { formatPercent, formatPercentRange } from "./describeChance.js";
+import type { CurveOdds } from "./types.js";
+
+/** Share of the phase's calibration years a value must be more extreme than to count as strong within its phase. */
+export const STRONG_WITHIN_PHASE = 0.75;
+
+/**
+ * A plain sentence for page 1 when this season's value of the curve's index is strong (or weak)
+ * within its phase, and what the response curve gives beside the phase's own odds.
+ *
+ * Only the outer phases have a direction: in the highest phase a value is "strong" when it is above at
+ * least {@link STRONG_WITHIN_PHASE} of the phase's calibration values and "weak" when above at most
+ * 1 − that share (near the cut); in the lowest phase the same with "below". A middle phase, or a value
+ * in between, gives no sentence (null).
+ *
+ * @param curve - the curve's reading at this season's value
+ * @param calibration - the calibration (phase odds of the index)
+ * @param training - the calibration's training set (phase of each calibration year)
+ * @param indexValues - index values by index name and year
+ * @param currentPhase - this season's phase number per index
+ * @returns the sentence, or null when the value is not strong or weak within an outer phase
+ * @example
+ * strengthNote({ index: "ENSO", value: 1.6, estimate: 0.45, … }, calibration, training, new Map([["ENSO", 2]]));
+ * // => "This season's ENSO value (1.6) is strong within its warm phase (above 82% of its 73 calibration years); the curve gives 45% (95% interval 31%–60%), against 30% for the warm phase as a whole."
+ */
+export function strengthNote(
+  curve: CurveOdds,
+  calibration: Calibration,
+  training: TrainingSet,
+  indexValues: IndexValues,
+  currentPhase: ReadonlyMap<string, number>,
+): string | null {
+  const index = calibration.indices.find((candidate) => candidate.name === curve.index);
+  const phase = currentPhase.get(curve.index);
+  if (index === undefined || phase === undefined) return null;
+  const last = index.definition.labels.length - 1;
+  if (last < 1 || (phase !== 0 && phase !== last)) return null;
+  const values = phaseValues(training, indexValues, curve.index, phase);
+  if (values.length === 0) return null;
+  const beyond = values.filter((value) => (phase === last ? curve.value > value : curve.value < value)).length / values.length;
+  const label = index.definition.labels[phase] ?? String(phase);
+  const side = phase === last ? "above" : "below";
+  const strength = beyond >= STRONG_WITHIN_PHASE ? "strong" : beyond <= 1 - STRONG_WITHIN_PHASE ? "weak" : null;
+  if (strength === null) return null;
+  const phaseOdds = index.phases[phase]?.probability;
+  const phaseWords =
+    phaseOdds === undefined || phaseOdds.estimate === null ? "" : `, against ${formatPercent(phaseOdds.estimate)} for the ${label} phase as a whole`;
+  const beyondWords = curve.beyondRange === null ? "" : `, read at the ${curve.beyondRange === "above" ? "largest" : "smallest"} calibration value ${curve.readAt}`;
+  return (
+    `This season's ${curve.index} value (${curve.value}) is ${strength} within its ${label} phase (${side} ${Math.round(beyond * 100)}% of its ${values.length} calibration years); ` +
+    `the curve gives ${formatPercent(curve.estimate)} (95% interval ${formatPercentRange(curve.lower, curve.upper)}${beyondWords})${phaseWords}.`
+  );
+}
+
+/** The calibration values of one index in one phase. */
+function phaseValues(training: TrainingSet, indexValues: IndexValues, index: string, phase: number): number[] {
+  const phases = training.phaseOf.get(index);
+  const values = indexValues.get(index);
+  const out: number[] = [];
+  if (phases === undefined || values === undefined) return out;
+  for (const [year, yearPhase] of phases) {
+    const value = values.get(year);
+    if (yearPhase === phase && value !== undefined) out.push(value);
+  }
+  return out;
+}
