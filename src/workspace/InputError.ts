@@ -62,19 +62,31 @@ export const MAX_PROBLEMS_PER_FILE = 20;
  * problems.toArray(); // => [{ file: "r/fire-events.csv", line: 3, message: "year must be …" }]
  */
 export class ProblemList {
-  private readonly items: InputProblem[] = [];
+  /** The problems kept: after a trim, the {@link MAX_PROBLEMS_PER_FILE} with the smallest lines. */
+  private items: InputProblem[] = [];
+  private total = 0;
 
   /** @param file - the file as shown to the user */
   constructor(readonly file: string) {}
 
-  /** Record one problem; `line` is 1-based, or null for a whole-file problem. */
+  /**
+   * Record one problem; `line` is 1-based, or null for a whole-file problem. Only the problems
+   * that can be shown are kept (a file with a million bad rows does not hold a million messages).
+   */
   add(line: number | null, message: string): void {
     this.items.push({ file: this.file, line, message });
+    this.total++;
+    if (this.items.length > 4 * MAX_PROBLEMS_PER_FILE) this.items = this.sorted().slice(0, MAX_PROBLEMS_PER_FILE);
   }
 
   /** Number of problems recorded so far (before the cap). */
   get size(): number {
-    return this.items.length;
+    return this.total;
+  }
+
+  /** Kept problems by line, whole-file problems first; a stable sort keeps the order of adding within a line. */
+  private sorted(): InputProblem[] {
+    return [...this.items].sort((a, b) => (a.line ?? 0) - (b.line ?? 0));
   }
 
   /**
@@ -82,10 +94,10 @@ export class ProblemList {
    * {@link MAX_PROBLEMS_PER_FILE}, with a last `file: and N more problems` entry when capped.
    */
   toArray(): InputProblem[] {
-    const sorted = [...this.items].sort((a, b) => (a.line ?? 0) - (b.line ?? 0));
-    if (sorted.length <= MAX_PROBLEMS_PER_FILE) return sorted;
+    const sorted = this.sorted();
+    if (this.total <= MAX_PROBLEMS_PER_FILE) return sorted;
     const kept = sorted.slice(0, MAX_PROBLEMS_PER_FILE);
-    const rest = sorted.length - MAX_PROBLEMS_PER_FILE;
+    const rest = this.total - MAX_PROBLEMS_PER_FILE;
     kept.push({ file: this.file, line: null, message: `and ${rest} more problem${rest === 1 ? "" : "s"}` });
     return kept;
   }

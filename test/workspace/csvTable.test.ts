@@ -70,3 +70,18 @@ describe("readCsvTable(bytes, required, problems)", () => {
     ]);
   });
 });
+
+describe("ProblemList(file)", () => {
+  it("keeps only the problems it can show, the smallest lines first, and counts the rest", async () => {
+    const { ProblemList: List } = await import("../../src/workspace/InputError.js");
+    const problems = new List("f.csv");
+    for (let line = 1_000_000; line >= 1; line--) problems.add(line, `problem ${line}`);
+    problems.add(null, "whole file");
+    expect(problems.size).toBe(1_000_001);
+    const shown = problems.toArray();
+    expect(shown).toHaveLength(21);
+    expect(shown[0]).toEqual({ file: "f.csv", line: null, message: "whole file" });
+    expect(shown.slice(1, 20).map((p) => p.line)).toEqual(Array.from({ length: 19 }, (_, i) => i + 1));
+    expect(shown[20]).toEqual({ file: "f.csv", line: null, message: "and 999981 more problems" });
+  });
+});
