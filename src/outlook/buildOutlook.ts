@@ -11,7 +11,7 @@ import type { IndexSettings, Workspace } from "../workspace/types.js";
 import { analogYears } from "./analogYears.js";
 import { comparedWithBase, formatPercent, formatPercentRange } from "./describeChance.js";
 import { selectionAwareInterval, selectionNote } from "./selectionAwareInterval.js";
-import { strengthNote } from "./strengthNote.js";
+import { formatValue, strengthNote } from "./strengthNote.js";
 import type { AnalogYear, CurrentPhase, CurveOdds, Outlook } from "./types.js";
 
 export interface OutlookRequest {
@@ -235,7 +235,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     const side = curveOdds.beyondRange === "above" ? "above the largest" : "below the smallest";
     warnings.push({
       code: "curve-beyond-range",
-      message: `${curveOdds.index} = ${curveOdds.value} is ${side} calibration value (${curveOdds.readAt}): the response curve is read at ${curveOdds.readAt}, not beyond the record`,
+      message: `${curveOdds.index} = ${curveOdds.value} is ${side} calibration value (${formatValue(curveOdds.readAt)}): the response curve is read at ${formatValue(curveOdds.readAt)}, not beyond the record`,
     });
   }
   const curveHeadline = response === "curve" && curveOdds !== null;
@@ -248,7 +248,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const curveBasis =
     curveOdds === null
       ? ""
-      : `the ${curveOdds.index} response curve read at ${curveOdds.readAt}${curveOdds.beyondRange === null ? "" : ` (this season's ${curveOdds.value} is beyond the calibration range)`}: a logistic regression of high-fire year on ${curveOdds.index} over ${curveOdds.years} calibration years, ${curveOdds.index} being the index the phase rule selects (${basis})`;
+      : `the ${curveOdds.index} response curve read at ${formatValue(curveOdds.readAt)}${curveOdds.beyondRange === null ? "" : ` (this season's ${curveOdds.value} is beyond the calibration range)`}: a logistic regression of high-fire year on ${curveOdds.index} over ${curveOdds.years} calibration years, ${curveOdds.index} being the index the phase rule selects (${basis})`;
   const headlineEstimate = curveHeadline && curveOdds !== null
     ? { estimate: curveOdds.estimate, lower: curveOdds.lower, upper: curveOdds.upper }
     : proportionEstimate(cell.fireYears, n, method);

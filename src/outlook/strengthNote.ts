@@ -47,7 +47,7 @@ export function strengthNote(
   const phaseOdds = index.phases[phase]?.probability;
   const phaseWords =
     phaseOdds === undefined || phaseOdds.estimate === null ? "" : `, against ${formatPercent(phaseOdds.estimate)} for the ${label} phase as a whole`;
-  const beyondWords = curve.beyondRange === null ? "" : `, read at the ${curve.beyondRange === "above" ? "largest" : "smallest"} calibration value ${curve.readAt}`;
+  const beyondWords = curve.beyondRange === null ? "" : `, read at the ${curve.beyondRange === "above" ? "largest" : "smallest"} calibration value ${formatValue(curve.readAt)}`;
   return (
     `This season's ${curve.index} value (${curve.value}) is ${strength} within its ${label} phase (${side} ${Math.round(beyond * 100)}% of its ${values.length} calibration years); ` +
     `the curve gives ${formatPercent(curve.estimate)} (95% interval ${formatPercentRange(curve.lower, curve.upper)}${beyondWords})${phaseWords}.`
@@ -65,4 +65,9 @@ function phaseValues(training: TrainingSet, indexValues: IndexValues, index: str
     if (yearPhase === phase && value !== undefined) out.push(value);
   }
   return out;
+}
+
+/** An index value to three significant digits, for sentences. */
+export function formatValue(value: number): string {
+  return Number(value.toPrecision(3)).toString();
 }
