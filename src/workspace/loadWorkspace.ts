@@ -5,7 +5,7 @@ import path from "node:path";
 import { didYouMean } from "./didYouMean.js";
 import { readActivityCsv, readEventsCsv, readModernCsv, readSitesCsv, type Located } from "./fireRecordCsv.js";
 import { readIndexCsv } from "./indexCsv.js";
-import { InputError, ProblemList, type InputProblem } from "./InputError.js";
+import { InputError, MAX_PROBLEMS_PER_FILE, ProblemList, type InputProblem } from "./InputError.js";
 import { echoText, MAX_DATA_FILE_BYTES, MAX_REGION_JSON_BYTES } from "./limits.js";
 import { parseRegionJson } from "./regionJson.js";
 import type { FireEvent, FireRecordInput, IndexSeries, IndexSettings, InputFile, Site, Warning, Workspace } from "./types.js";
@@ -246,10 +246,19 @@ function checkEventsAgainstSites(
 ): void {
   const byId = new Map(sites.map((site) => [site.value.id, site.value]));
   const ids = [...byId.keys()];
+  // A suggestion compares the id with every site id: compute it once per unknown id, and only for
+  // the problems that can be shown (events are in line order, so the first ones).
+  const suggestions = new Map<string, string | null>();
+  let unknown = 0;
   for (const event of events) {
     const site = byId.get(event.value.site);
     if (site === undefined) {
-      const suggestion = didYouMean(event.value.site, ids);
+      unknown++;
+      let suggestion = suggestions.get(event.value.site) ?? null;
+      if (!suggestions.has(event.value.site) && unknown <= MAX_PROBLEMS_PER_FILE) {
+        suggestion = didYouMean(event.value.site, ids);
+        suggestions.set(event.value.site, suggestion);
+      }
       problems.add(
         event.line,
         `unknown site "${echoText(event.value.site)}" (not in ${echoText(sitesName, 200)}${suggestion === null ? "" : `; did you mean "${echoText(suggestion)}"?`})`,
