@@ -14,6 +14,7 @@ import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { progressReporter } from "./calibrate.js";
 import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
+import { writeErr, writeOut } from "./terminalText.js";
 import { addOutlookOptions, resolveOutlookRequest } from "./outlookRequest.js";
 import { firephaseVersion } from "./version.js";
 import { jsonText } from "./printJson.js";
@@ -297,12 +298,12 @@ export function briefCommand(): Command {
     .action(async (region: string, options: BriefOptions) => {
       try {
         const result = await runBrief(region, options, { cwd: process.cwd(), today: new Date(), env: process.env });
-        for (const note of result.notes) process.stderr.write(`note: ${note}\n`);
-        process.stdout.write(`${result.pdfPath}\n`);
-        if (result.htmlPath !== null) process.stdout.write(`${result.htmlPath}\n`);
-        if (result.keptPath !== null) process.stderr.write(`note: kept this outlook as ${result.keptPath} (firephase review scores it)\n`);
+        for (const note of result.notes) writeErr(`note: ${note}\n`);
+        writeOut(`${result.pdfPath}\n`);
+        if (result.htmlPath !== null) writeOut(`${result.htmlPath}\n`);
+        if (result.keptPath !== null) writeErr(`note: kept this outlook as ${result.keptPath} (firephase review scores it)\n`);
       } catch (error) {
-        handleError(error);
+        handleError(error, undefined, "brief");
       }
     });
 }

@@ -5,13 +5,14 @@ import type { Calibration, IndexCalibration } from "../calibrate/types.js";
 import { formatPercent, formatPercentRange } from "../outlook/describeChance.js";
 import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { handleError } from "./handleError.js";
+import { writeErr, writeOut } from "./terminalText.js";
 import { printJson } from "./printJson.js";
 import { fixed, formatP, textTable } from "./textTable.js";
 
-/** `firephase calibrate <region> [--json]`: how each index phase has shifted the odds of a fire year. */
+/** `firephase calibrate <region> [--json]`: how each index phase has shifted the odds of a high-fire year. */
 export function calibrateCommand(): Command {
   return new Command("calibrate")
-    .description("calibrate how each climate-index phase has shifted the odds of a fire year in this region's record")
+    .description("calibrate how each climate-index phase has shifted the odds of a high-fire year in this region's record")
     .argument("<region>", "region folder (holds region.json)")
     .option("--json", "print the calibration as JSON (schema firephase.calibration/1)")
     .action(async (region: string, options: { json?: boolean }) => {
@@ -19,9 +20,9 @@ export function calibrateCommand(): Command {
         const workspace = await loadWorkspace(region);
         const calibration = runCalibration(workspace, { onProgress: progressReporter() });
         if (options.json === true) printJson(toCalibrationJson(calibration));
-        else process.stdout.write(formatCalibration(calibration));
+        else writeOut(formatCalibration(calibration));
       } catch (error) {
-        handleError(error);
+        handleError(error, undefined, "calibrate");
       }
     });
 }
@@ -29,7 +30,7 @@ export function calibrateCommand(): Command {
 /** Progress lines on stderr, only when stderr is a terminal (never in pipes, logs or tests). */
 export function progressReporter(): ((message: string) => void) | undefined {
   if (process.stderr.isTTY !== true) return undefined;
-  return (message) => process.stderr.write(`${message}\n`);
+  return (message) => writeErr(`${message}\n`);
 }
 
 /** The human summary of a calibration: one compact table per index. */
@@ -40,9 +41,9 @@ export function formatCalibration(calibration: Calibration): string {
   out.push(`Calibration — ${calibration.region.name}`);
   out.push(`Period ${period.first}–${period.last}: ${period.years} years with enough recording sites`);
   out.push(
-    `Fire years: ${fireYears.years.length} (top ${formatPercent(fireYears.top)} by ${measure}; threshold ${fixed(fireYears.threshold, 3)}; realised share ${formatPercent(fireYears.realisedShare)})`,
+    `High-fire years: ${fireYears.years.length} (top ${formatPercent(fireYears.top)} by ${measure}; threshold ${fixed(fireYears.threshold, 3)}; realised share ${formatPercent(fireYears.realisedShare)})`,
   );
-  out.push(`Base rate: ${formatPercent(baseRate.estimate)} of years are fire years (95% interval ${formatPercentRange(baseRate.lower, baseRate.upper)})`);
+  out.push(`Base rate: ${formatPercent(baseRate.estimate)} of years are high-fire years (95% interval ${formatPercentRange(baseRate.lower, baseRate.upper)})`);
   const shares = categories.realisedShares;
   out.push(
     `Activity categories (terciles): below normal ≤ ${fixed(categories.lowerCut, 3)} (${formatPercent(shares.below)} of years), near normal (${formatPercent(shares.near)}), above normal > ${fixed(categories.upperCut, 3)} (${formatPercent(shares.above)})`,
@@ -76,7 +77,7 @@ function formatIndex(index: IndexCalibration, fireYearCount: number): string[] {
     fixed(phase.ratioToBase, 2),
     formatP(c.perPhase[i]?.fisherPValue),
   ]);
-  lines.push(textTable(["phase", "years", "fire years", "P(fire year)", "95% interval", "× base rate", "Fisher p"], rows));
+  lines.push(textTable(["phase", "years", "high-fire years", "P(high-fire year)", "95% interval", "× base rate", "Fisher p"], rows));
   const sea = index.sea;
   if (sea.reason !== undefined) {
     lines.push(`  Superposed epoch analysis: not enough data (${sea.reason})`);
@@ -89,7 +90,7 @@ function formatIndex(index: IndexCalibration, fireYearCount: number): string[] {
         : [];
     });
     lines.push(
-      `  Superposed epoch analysis (${sea.eventYears.length} of ${fireYearCount} fire years` +
+      `  Superposed epoch analysis (${sea.eventYears.length} of ${fireYearCount} high-fire years` +
         (sea.eventYears.length < fireYearCount ? ", the others lack index values somewhere in their window" : "") +
         `; ${sea.draws} random draws): ` +
         (significant.length === 0 ? "no lag departs from chance at p < 0.05" : `departures at p < 0.05 — ${significant.join("; ")}`),

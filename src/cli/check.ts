@@ -6,6 +6,7 @@ import type { FireActivity } from "../record/types.js";
 import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import type { InputFile, Workspace } from "../workspace/types.js";
 import { handleError } from "./handleError.js";
+import { writeErr, writeOut } from "./terminalText.js";
 import { printJson } from "./printJson.js";
 import { regionArgument } from "./regionArgument.js";
 import { textTable } from "./textTable.js";
@@ -248,11 +249,11 @@ export function checkCommand(): Command {
         if (options.json === true) {
           printJson(report);
         } else {
-          process.stdout.write(formatCheckReport(report));
-          for (const warning of report.warnings) process.stderr.write(`warning: ${warning.message}\n`);
+          writeOut(formatCheckReport(report));
+          for (const warning of report.warnings) writeErr(`warning: ${warning.message}\n`);
         }
       } catch (error) {
-        handleError(error);
+        handleError(error, undefined, "check");
       }
     });
 }

@@ -8,6 +8,7 @@ import { checkCommand } from "./check.js";
 import { handleError } from "./handleError.js";
 import { outlookCommand } from "./outlook.js";
 import { reviewCommand } from "./review.js";
+import { terminalSafe } from "./terminalText.js";
 import { firephaseVersion } from "./version.js";
 
 /**
@@ -24,9 +25,17 @@ export function createProgram(): Command {
     )
     .version(firephaseVersion(), "-V, --version", "print the version")
     .exitOverride()
+    .configureOutput({
+      writeOut: (text) => process.stdout.write(terminalSafe(text)),
+      writeErr: (text) => process.stderr.write(terminalSafe(text)),
+      // Commander's own usage errors get the one prefix of every firephase error line.
+      outputError: (text, write) => write(`firephase: ${text.replace(/^error: /, "")}`),
+    })
     .showHelpAfterError("(run firephase --help for usage)");
   for (const command of [checkCommand(), calibrateCommand(), outlookCommand(), briefCommand(), reviewCommand()]) {
-    program.addCommand(command.copyInheritedSettings(program));
+    command.copyInheritedSettings(program);
+    command.showHelpAfterError(`(run firephase ${command.name()} --help for usage)`);
+    program.addCommand(command);
   }
   return program;
 }

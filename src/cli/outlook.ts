@@ -7,6 +7,7 @@ import type { Outlook } from "../outlook/types.js";
 import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { progressReporter } from "./calibrate.js";
 import { handleError } from "./handleError.js";
+import { writeErr, writeOut } from "./terminalText.js";
 import { addOutlookOptions, resolveOutlookRequest } from "./outlookRequest.js";
 import { printJson } from "./printJson.js";
 import { fixed, textTable } from "./textTable.js";
@@ -26,9 +27,9 @@ export function outlookCommand(): Command {
         const calibration = runCalibration(workspace, { onProgress: progressReporter() });
         const outlook = buildOutlook(workspace, calibration, request);
         if (options.json === true) printJson(toOutlookJson(outlook));
-        else process.stdout.write(formatOutlook(outlook));
+        else writeOut(formatOutlook(outlook));
       } catch (error) {
-        handleError(error);
+        handleError(error, undefined, "outlook");
       }
     });
 }

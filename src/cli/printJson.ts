@@ -2,8 +2,8 @@
  * JSON text as every firephase command prints it (and as `brief` keeps an outlook): stable
  * 2-space indented JSON with a final newline. Object keys keep their insertion order; non-finite
  * numbers (NaN, ±Infinity) become `null`, as in `JSON.stringify`, so callers give a `reason`
- * beside any value that could not be computed. The C1 control characters U+0080–U+009F, DEL and
- * the Unicode bidirectional controls are written as `\uXXXX` escapes (the same JSON value), so
+ * beside any value that could not be computed. The C1 control characters U+0080–U+009F, DEL, the
+ * Unicode line and paragraph separators and the bidirectional controls are written as `\uXXXX` escapes (the same JSON value), so
  * the text is safe on a terminal; JSON.stringify already escapes the C0 controls.
  *
  * @param value - any JSON-serialisable value
@@ -13,7 +13,7 @@
  */
 export function jsonText(value: unknown): string {
   return `${JSON.stringify(value, null, 2)}\n`.replace(
-    /[\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g,
+    /[\u007f-\u009f\u061c\u200e\u200f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g,
     (character) => `\\u${character.charCodeAt(0).toString(16).padStart(4, "0")}`,
   );
 }

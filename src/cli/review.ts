@@ -5,6 +5,7 @@ import type { Review } from "../review/types.js";
 import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { progressReporter } from "./calibrate.js";
 import { handleError } from "./handleError.js";
+import { writeErr, writeOut } from "./terminalText.js";
 import { readKeptOutlooks, reviewRegion } from "./keptOutlooks.js";
 import { printJson } from "./printJson.js";
 import { regionArgument } from "./regionArgument.js";
@@ -108,12 +109,12 @@ export function reviewCommand(): Command {
           printJson(review);
         } else {
           for (const problem of review.warnings.filter((warning) => warning.code === "kept-file-skipped")) {
-            process.stderr.write(`warning: ${problem.message}\n`);
+            writeErr(`warning: ${problem.message}\n`);
           }
-          process.stdout.write(formatReview(review));
+          writeOut(formatReview(review));
         }
       } catch (error) {
-        handleError(error);
+        handleError(error, undefined, "review");
       }
     });
 }

@@ -69,12 +69,20 @@ describe("firephase check <region> (in process)", () => {
     expect(run.stderr).toBe('test/fixtures/regions/unknown-key/region.json:31: unknown key "seaDraw" in "methods" (did you mean "seaDraws"?)\n');
   });
 
-  it("usage errors exit 2: no region, an unknown option, an unknown command", async () => {
-    for (const argv of [["check"], ["check", VALID, "--bogus"], ["frobnicate"]]) {
+  it("usage errors exit 2 with the firephase: prefix and the command's own help hint", async () => {
+    for (const [argv, hint] of [
+      [["check"], "(run firephase check --help for usage)"],
+      [["check", VALID, "--bogus"], "(run firephase check --help for usage)"],
+      [["outlook", VALID, "--season", "next"], "(run firephase outlook --help for usage)"],
+      [["frobnicate"], "(run firephase --help for usage)"],
+    ] as const) {
       const run = await runInProcess(argv);
       expect(run.code).toBe(2);
       expect(run.stdout).toBe("");
-      expect(run.stderr).toMatch(/^error: /);
+      const lines = run.stderr.trimEnd().split("\n");
+      expect(lines[0]).toMatch(/^firephase: /);
+      expect(lines.at(-1)).toBe(hint);
+      expect(run.stderr).not.toMatch(/^error: /m);
       noStack(run.stderr);
     }
   });
