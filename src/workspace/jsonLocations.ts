@@ -138,6 +138,7 @@ export function locateJson(text: string): JsonLocations {
     }
     literalPattern.lastIndex = index;
     const literal = literalPattern.exec(text);
+    if (text[index] === "\u2212") fail('expected a value: write a minus sign as "-", not the Unicode minus sign U+2212');
     if (literal === null || literal[0] === "") fail("expected a value");
     const written = (literal as RegExpExecArray)[0];
     if (written !== "true" && written !== "false" && written !== "null") numbers.set(pathKey(path), written);

@@ -119,10 +119,12 @@ async function readInputFile(absolute: string, problems: ProblemList, limit: num
  * @returns the workspace; `warnings` lists what was accepted but is worth a look (repeated fire
  *   events counted once, seasons left missing because a month is missing)
  * @throws InputError listing all problems (at most 20 per file, then "and N more problems"):
- *   missing or unreadable files, files that are empty or not UTF-8 text, `#` comment lines, CSV
- *   quoting errors, missing columns, values that are not numbers or out of range, repeated site
- *   ids or years, fire events at unknown sites or outside a site's recording span, and every
- *   region.json problem (unknown keys with a did-you-mean suggestion)
+ *   missing or unreadable files, entries that are not regular files (folders, devices, named
+ *   pipes, sockets), files over the size limit (32 MiB; region.json 1 MiB), files that are empty
+ *   or not UTF-8 text, `#` comment lines in CSV files, CSV quoting errors, missing columns, values
+ *   that are not numbers or out of range, undeclared missing-value codes in index files, repeated
+ *   site ids or years, fire events at unknown sites or outside a site's recording span, text over
+ *   its length limit, and every region.json problem (unknown keys with a did-you-mean suggestion)
  * @example
  * const workspace = await loadWorkspace("demo-region");
  * workspace.settings.methods.independenceKm; // => 40 unless region.json sets it

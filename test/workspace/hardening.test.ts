@@ -233,3 +233,11 @@ describe("region.json numbers and new settings", () => {
     ]);
   });
 });
+
+describe("region.json with a Unicode minus sign", () => {
+  it("says to write the minus sign as '-'", () => {
+    expect(messages(JSON.stringify(minimal).replace('"indices"', '"seed": \u22125, "indices"'))).toEqual([
+      'invalid JSON: expected a value: write a minus sign as "-", not the Unicode minus sign U+2212 (found "−")',
+    ]);
+  });
+});
