@@ -1,3 +1,4 @@
+import { mean } from "simple-statistics";
 import { describe, expect, it } from "vitest";
 import { currentSeasonValue } from "../../src/climate/currentSeasonValue.js";
 import { parseMonthWindow, seasonalValues, type MonthlyValue } from "../../src/climate/seasonalValues.js";
@@ -98,5 +99,13 @@ describe("currentSeasonValue(series, settings, season, issued)", () => {
   it("throws on an issue date that does not exist or is not YYYY-MM-DD", () => {
     expect(() => currentSeasonValue(monthlySeries(rows), settings("Dec-Mar"), 2027, "2027-02-30")).toThrow(/does not exist/);
     expect(() => currentSeasonValue(monthlySeries(rows), settings("Dec-Mar"), 2027, "10/03/2027")).toThrow(RangeError);
+  });
+
+  it("a provisional value is the arithmetic mean of the months present (checked against simple-statistics)", () => {
+    const result = currentSeasonValue(monthlySeries(rows), settings("Nov-Apr"), 2027, "2027-03-15");
+    // Nov 2026 … Feb 2027 present (9, 1, 2, 3): 4 of 6 months ≥ ceil(6 / 2) = 3
+    expect(result.provisional).toBe(true);
+    expect(result.value).toBeCloseTo(mean([9, 1, 2, 3]), 12);
+    expect(result.missingMonths).toEqual(["2027-03", "2027-04"]);
   });
 });
