@@ -129,7 +129,8 @@ try {
   });
   const out = join(scratch, "bench.pdf");
   const brief = await timed("whole brief demo-region (PDF written)", REPEATS, () =>
-    runBrief(demo, { out, browser: browser.executablePath }, { cwd: scratch, today: new Date(), env: {} }),
+    // --force: each repeat replaces the last PDF; --no-keep: the bench never adds to demo-region/issued/.
+    runBrief(demo, { out, browser: browser.executablePath, force: true, keep: false }, { cwd: scratch, today: new Date(), env: {} }),
   );
   console.log("");
   console.log(`4× region / demo computation: ${(computeBig.median / computeDemo.median).toFixed(2)}×`);
