@@ -66,4 +66,25 @@ describe("physical line numbers (fast-check)", () => {
     readSitesCsv(Buffer.from(text, "utf8"), problems);
     expect(problems.toArray().map((p) => p.line)).toEqual([8]);
   });
+
+  it("any fields written as RFC 4180 (quoted when needed, either line end) read back the same (fast-check)", () => {
+    const text = fc.string({ unit: fc.constantFrom("a", "b", " ", ",", '"', "\n", "\r", "\r\n", "é", "#", "1"), maxLength: 8 });
+    fc.assert(
+      fc.property(fc.array(fc.array(text, { minLength: 3, maxLength: 3 }), { minLength: 1, maxLength: 6 }), fc.constantFrom("\n", "\r\n"), (records, eol) => {
+        const write = (field: string): string => `"${field.replaceAll('"', '""')}"`;
+        const csv = `a,b,c${eol}${records.map((r) => r.map(write).join(",")).join(eol)}${eol}`;
+        const problems = new ProblemList("f.csv");
+        const table = readCsvTable(Buffer.from(csv, "utf8"), ["a", "b", "c"], problems);
+        expect(problems.toArray()).toEqual([]);
+        const rows = [...(table?.rows ?? [])];
+        expect(rows.map((row) => [row.field("a"), row.field("b"), row.field("c")])).toEqual(records.map((r) => r.map((f) => f.trim())));
+        let line = 2;
+        rows.forEach((row, i) => {
+          expect(row.line).toBe(line);
+          line += 1 + (records[i] ?? []).join(",").split(/\r\n|\n|\r/).length - 1;
+        });
+      }),
+      { numRuns: 300, seed: 4180 },
+    );
+  });
 });
