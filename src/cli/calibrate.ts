@@ -1,7 +1,7 @@
 import { Command } from "commander";
 import { runCalibration } from "../calibrate/runCalibration.js";
 import { toCalibrationJson } from "../calibrate/toCalibrationJson.js";
-import type { Calibration, IndexCalibration } from "../calibrate/types.js";
+import type { Calibration, IndexCalibration, ModernSummary } from "../calibrate/types.js";
 import { formatPercent, formatPercentRange } from "../outlook/describeChance.js";
 import { loadWorkspace } from "../workspace/loadWorkspace.js";
 import { handleError } from "./handleError.js";
@@ -49,12 +49,59 @@ export function formatCalibration(calibration: Calibration): string {
     `Activity categories (terciles): below normal ≤ ${fixed(categories.lowerCut, 3)} (${formatPercent(shares.below)} of years), near normal (${formatPercent(shares.near)}), above normal > ${fixed(categories.upperCut, 3)} (${formatPercent(shares.above)})`,
   );
   for (const index of calibration.indices) out.push("", ...formatIndex(index, fireYears.years.length));
+  out.push("", ...formatModern(calibration));
   if (calibration.warnings.length > 0) {
     out.push("", "Warnings:");
     for (const warning of calibration.warnings) out.push(`  - ${warning.message}`);
   }
   out.push("", "Statistical odds from past years only; see SAFETY.md. Official agency outlooks and fire-danger forecasts come first.");
   return `${out.join("\n")}\n`;
+}
+
+const amount = (value: number | null, measure: "area" | "fires"): string =>
+  value === null || !Number.isFinite(value) ? "—" : `${value.toLocaleString("en-US", { maximumFractionDigits: 0 })}${measure === "area" ? " ha" : " fires"}`;
+
+function summaryText(summary: ModernSummary, measure: "area" | "fires"): string {
+  if (summary.median === null) return `not enough data (${summary.reason ?? "no value"})`;
+  return `median ${amount(summary.median, measure)} (${amount(summary.min, measure)} to ${amount(summary.max, measure)}, ${summary.years} years)`;
+}
+
+/** The modern record as a second era: its high-fire years in its own units, odds by phase and the two-era test per index. */
+function formatModern(calibration: Calibration): string[] {
+  const modern = calibration.modern ?? null;
+  if (modern === null) return [`Modern record: not enough data (${calibration.modernReason ?? "no modern fire record"})`];
+  const measure = modern.measure === "area" ? "area burned" : "number of fires";
+  const lines = [
+    `Modern record ${modern.period.first}–${modern.period.last} (${modern.period.years} years), high-fire years by ${measure}: ${modern.fireYears.length}` +
+      ` (at least ${amount(modern.threshold, modern.measure)}; ${modern.fireYears.join(", ") || "none"}); base rate ${formatPercent(modern.baseRate.estimate)} (95% interval ${formatPercentRange(modern.baseRate.lower, modern.baseRate.upper)})`,
+    `  A high-fire year in hectares: ${summaryText(modern.meaning.areaHa.highFire, "area")}; other years ${summaryText(modern.meaning.areaHa.other, "area")}`,
+    `  In fires: ${summaryText(modern.meaning.fires.highFire, "fires")}; other years ${summaryText(modern.meaning.fires.other, "fires")}`,
+  ];
+  const agreement = modern.agreement;
+  lines.push(
+    agreement.agreementShare === null
+      ? `  Years in both records: not enough data (${agreement.reason ?? "none"})`
+      : `  Years in both records: ${agreement.years}; both call ${agreement.both} a high-fire year, the fire-scar record alone ${agreement.fireScarOnly}, the modern record alone ${agreement.modernOnly}; they agree on ${formatPercent(agreement.agreementShare)} of years`,
+  );
+  for (const index of modern.indices) {
+    lines.push(`  ${index.name} in the modern record (${index.years} years):`);
+    lines.push(
+      textTable(
+        ["phase", "years", "high-fire years", "P(high-fire year)", "95% interval"],
+        index.phases.map((phase) => [
+          phase.label,
+          String(phase.years),
+          String(phase.fireYears),
+          formatPercent(phase.probability.estimate),
+          formatPercentRange(phase.probability.lower, phase.probability.upper),
+        ]),
+        "    ",
+      ),
+    );
+    lines.push(`    ${index.homogeneity.sentence}`);
+  }
+  for (const warning of modern.warnings) lines.push(`  - ${warning.message}`);
+  return lines;
 }
 
 function formatIndex(index: IndexCalibration, fireYearCount: number): string[] {
