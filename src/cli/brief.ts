@@ -21,6 +21,9 @@ import { jsonText } from "./printJson.js";
 import { readKeptOutlooks, reviewRegion } from "./keptOutlooks.js";
 import { readKeptOutlook } from "../review/readKeptOutlook.js";
 import { sinceLastBriefing } from "../review/sinceLastBriefing.js";
+import type { Review, SinceLastBriefing } from "../review/types.js";
+import type { Calibration } from "../calibrate/types.js";
+import type { Workspace } from "../workspace/types.js";
 import { toOutlookJson } from "../outlook/toOutlookJson.js";
 import { checkOutputTargets, OutputPathError, outputNameProblem, realTarget, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
 
@@ -127,6 +130,31 @@ export function keptOutlookPath(region: string, season: number, issued: string):
   return join(region, "issued", `${season}-${issued}.json`);
 }
 
+/**
+ * The region's memory for a briefing: the review of the outlooks kept so far (null when none is
+ * kept) and what changed since the most recent kept outlook of the same or the previous season
+ * (null when there is none). The outlook being issued is left out of both, also when `--force`
+ * replaces its kept file.
+ *
+ * @param workspace - the loaded region
+ * @param calibration - its calibration
+ * @param outlookText - the outlook being issued, as `outlook --json` prints it
+ * @param keptTarget - where it will be kept (null with --no-keep)
+ * @returns the review and the changes for `buildBriefingView`
+ */
+export async function briefingMemory(
+  workspace: Workspace,
+  calibration: Calibration,
+  outlookText: string,
+  keptTarget: string | null,
+): Promise<{ readonly review: Review | null; readonly sinceLast: SinceLastBriefing | null }> {
+  const read = await readKeptOutlooks(workspace);
+  const earlier = keptTarget === null ? read.kept : read.kept.filter((kept) => resolve(kept.file) !== resolve(keptTarget));
+  const review = earlier.length === 0 && read.problems.length === 0 ? null : reviewRegion(workspace, calibration, { kept: earlier, problems: read.problems });
+  const sinceLast = sinceLastBriefing(readKeptOutlook(outlookText, keptTarget ?? "this outlook"), earlier);
+  return { review, sinceLast };
+}
+
 function paperOption(value: string | undefined): PaperSize {
   if (value === undefined) return "a4";
   const lower = value.toLowerCase();
@@ -226,11 +254,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     }
     const madeAt = context.today.toISOString();
     const outlookText = jsonText(toOutlookJson(outlook));
-    // The region's memory: how the kept outlooks turned out, and what changed since the last one.
-    const read = await readKeptOutlooks(workspace);
-    const earlier = keptTarget === null ? read.kept : read.kept.filter((kept) => resolve(kept.file) !== resolve(keptTarget));
-    const review = earlier.length === 0 ? null : reviewRegion(workspace, calibration, { kept: earlier, problems: read.problems });
-    const sinceLast = sinceLastBriefing(readKeptOutlook(outlookText, keptTarget ?? "this outlook"), earlier);
+    const { review, sinceLast } = await briefingMemory(workspace, calibration, outlookText, keptTarget);
     const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper, madeAt, review, sinceLast });
     const html = renderBriefingHtml(view);
     await outputChecked(() => checkOutputTargets(targets, replace));

@@ -59,3 +59,30 @@ describe("firephase review <region>", () => {
     expect(messages).toContainEqual(expect.stringMatching(/empty\.json:1: not valid JSON/));
   });
 });
+
+describe("briefingMemory(workspace, calibration, outlookText, keptTarget)", () => {
+  it("gives the review of the earlier kept outlooks and what changed since the latest of the same season", async () => {
+    const { loadWorkspace } = await import("../../src/workspace/loadWorkspace.js");
+    const { runCalibration } = await import("../../src/calibrate/runCalibration.js");
+    const { briefingMemory, keptOutlookPath } = await import("../../src/cli/brief.js");
+    const workspace = await loadWorkspace(REGION);
+    const calibration = runCalibration(workspace);
+    const now = {
+      schema: "firephase.outlook/1",
+      issued: "1711-04-01",
+      season: 1711,
+      phases: { ENSO: "warm" },
+      current: [{ index: "ENSO", value: 0.9 }],
+      fireYear: { estimate: 0.35 },
+    };
+    const target = keptOutlookPath(REGION, 1711, "1711-04-01");
+    const memory = await briefingMemory(workspace, calibration, `${JSON.stringify(now)}\n`, target);
+    expect(memory.review?.known).toBe(4);
+    expect(memory.sinceLast?.previous.issued).toBe("1711-03-01");
+    expect(memory.sinceLast?.sentence).toBe("Since the outlook of 1711-03-01: ENSO moved from cold to warm; the chance of a high-fire year fell from 40% to 35%.");
+    // The outlook being replaced with --force is not compared with itself.
+    const same = await briefingMemory(workspace, calibration, `${JSON.stringify({ ...now, issued: "1711-03-01" })}\n`, keptOutlookPath(REGION, 1711, "1711-03-01"));
+    expect(same.sinceLast?.previous.issued).toBe("1711-02-01");
+    expect(same.review?.outlooks.map((entry) => entry.issued)).not.toContain("1711-03-01");
+  });
+});
