@@ -334,6 +334,14 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   });
   const analogFireShare = proportionEstimate(analogs.filter((analog) => analog.fireYear).length, analogs.length, method);
 
+  // The permutation test, bootstrap intervals and the rule the outlook issues (methods settings and seed).
+  const hindcastSettings = {
+    seed: settings.seed,
+    permutations: settings.methods.permutations,
+    blockYears: settings.methods.blockYears,
+    bootstrapResamples: settings.methods.bootstrapResamples,
+    response,
+  };
   const computedSkill = runHindcast({
     years: calibration.years,
     activity: calibration.activity,
@@ -345,6 +353,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     exclusion: settings.methods.hindcastExclusion,
     jointMinYears: settings.methods.jointMinYears,
     jointMaxQ: settings.methods.jointMaxQ,
+    ...hindcastSettings,
   });
   const hindcast =
     currentPhase.size === 0
