@@ -310,8 +310,8 @@ export function monthRangeText(months: readonly string[]): string {
  * {@link resolveOutlookDates}. Each index's current value comes from, in this order: `--values`;
  * region.json `outlook.values` when they were written for the season issued; this season's
  * window of the index file itself (`currentSeasonValue`: complete, or provisional from at least
- * half of the window's months, which a note says; an index whose value cannot be computed is
- * left out with a note giving the reason).
+ * half of the window's months — `details` says so and the outlook warns about it; an index whose
+ * value cannot be computed is left out with a note giving the reason).
  *
  * `sources` says where each value came from in words ("nao-monthly.csv, Dec 2026–Feb 2027",
  * "region.json", "--values"); `details` adds the window, the months used and whether the value is
@@ -368,9 +368,6 @@ export function resolveOutlookRequest(workspace: Workspace, options: OutlookOpti
     values[name] = current.value;
     sources[name] = source;
     details[name] = { source, window: current.window, months: current.months, provisional: current.provisional };
-    if (current.provisional) {
-      notes.push({ code: "provisional-value", message: `${name}: ${current.reason ?? "provisional: computed from part of its window"}` });
-    }
   }
   return { values, issued: dates.issued, season: dates.season, sources, details, notes };
 }

@@ -169,7 +169,7 @@ describe("resolveOutlookRequest(workspace, options, today)", () => {
 describe("resolveOutlookRequest(workspace, options, today): values from the index files", () => {
   // Fixture files: indices.csv (yearly ENSO to 1712) and nao-monthly.csv (NAO, Dec-Mar window,
   // Dec 1709 −0.6, Jan 1710 1.0, Feb 1710 0.5, Mar 1710 0.0, nothing after).
-  it("computes a provisional Dec–Mar mean in mid-March from Dec–Feb, and says so in a note", () => {
+  it("computes a provisional Dec–Mar mean in mid-March from Dec–Feb, and marks it in its details", () => {
     const request = resolveOutlookRequest(withOutlook({}), {}, day(1710, 3, 15));
     expect(request.season).toBe(1710);
     expect(request.values.ENSO).toBe(0.1);
@@ -183,8 +183,8 @@ describe("resolveOutlookRequest(workspace, options, today): values from the inde
       provisional: true,
     });
     expect(request.details?.ENSO).toEqual({ source: "indices.csv, 1710", window: null, months: [], provisional: false });
-    expect(request.notes?.map((note) => note.code)).toEqual(["provisional-value"]);
-    expect(request.notes?.[0]?.message).toMatch(/^NAO: provisional: mean of Dec 1709, Jan 1710, Feb 1710 only/);
+    // The outlook itself warns about a provisional value (from details); the request adds no note.
+    expect(request.notes).toEqual([]);
   });
 
   it("uses the whole window once March is complete", () => {
