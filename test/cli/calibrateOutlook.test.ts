@@ -13,11 +13,11 @@ function firephase(...args: string[]) {
 }
 
 describe("firephase calibrate demo-region", () => {
-  it("shows the planted warm-ENSO link with intervals", () => {
+  it("shows the planted dry-PMI link with intervals", () => {
     const run = firephase("calibrate", "demo-region");
     expect(run.code).toBe(0);
-    expect(run.stdout).toMatch(/ENSO — 291 years/);
-    expect(run.stdout).toMatch(/warm\s+86\s+24\s+28%\s+20–38%/);
+    expect(run.stdout).toMatch(/PMI — 270 years/);
+    expect(run.stdout).toMatch(/dry\s+85\s+19\s+22%\s+15–32%/);
     expect(run.stderr).toBe("");
   });
 
@@ -28,8 +28,8 @@ describe("firephase calibrate demo-region", () => {
     expect(first.stdout).toBe(second.stdout);
     const json = JSON.parse(first.stdout);
     expect(json.schema).toBe("firephase.calibration/1");
-    expect(json.period).toEqual({ first: 1700, last: 1990, years: 291 });
-    expect(json.indices.ENSO.sea.draws).toBe(10000);
+    expect(json.period).toEqual({ first: 1720, last: 1990, years: 271 });
+    expect(json.indices.PMI.sea.draws).toBe(10000);
   });
 });
 
@@ -66,32 +66,38 @@ describe("firephase outlook demo-region", () => {
   });
 
   it("merges repeated --values and says where each value came from", () => {
-    const run = firephase("outlook", "demo-region", "--values", "ENSO=-1", "--values", "NAO=0.1", "--json");
+    const run = firephase("outlook", "demo-region", "--values", "PMI=-1", "--values", "WSI=0.1", "--json");
     expect(run.code).toBe(0);
     const json = JSON.parse(run.stdout);
     const sources = Object.fromEntries(json.current.map((c: { index: string; source: string }) => [c.index, c.source]));
-    expect(sources).toEqual({ ENSO: "--values", NAO: "--values", AMO: "region.json", PDO: "region.json" });
+    expect(sources).toEqual({ PMI: "--values", ENSO: "climate-monthly.csv, Dec 2026–Feb 2027", WSI: "--values" });
   });
 
   it("warns when region.json's values were written for another season", () => {
-    const run = firephase("outlook", "demo-region", "--season", "2028", "--json");
+    // The demo keeps no outlook.values (its values come from the files): add one for season 2027.
+    const folder = join(mkdtempSync(join(tmpdir(), "firephase-values-")), "region");
+    cpSync(join(root, "demo-region"), folder, { recursive: true });
+    const region = JSON.parse(readFileSync(join(folder, "region.json"), "utf8"));
+    region.outlook = { ...region.outlook, values: { PMI: -1.2 } };
+    writeFileSync(join(folder, "region.json"), JSON.stringify(region, null, 2));
+    const run = firephase("outlook", folder, "--season", "2028", "--json");
     const json = JSON.parse(run.stdout);
     expect(json.warnings.map((w: { code: string }) => w.code)).toContain("values-for-another-season");
   });
 
   it("takes --values over region.json and keeps the promised JSON", () => {
-    const run = firephase("outlook", "demo-region", "--values", "ENSO=-1.2", "--issued", "2027-02-01", "--season", "2027", "--json");
+    const run = firephase("outlook", "demo-region", "--values", "PMI=1.2", "--issued", "2027-02-01", "--season", "2027", "--json");
     expect(run.code).toBe(0);
     const json = JSON.parse(run.stdout);
     expect(json.schema).toBe("firephase.outlook/1");
     expect(json.issued).toBe("2027-02-01");
-    expect(json.phases.ENSO).toBe("cold");
+    expect(json.phases.PMI).toBe("wet");
     expect(json.fireYear.estimate).toBeLessThan(json.baseRate.estimate);
-    expect(json.hindcast.years).toBe(291);
+    expect(json.hindcast.years).toBe(271);
   });
 
   it.each([
-    [["--values", "FOO=1"], /unknown index "FOO"; this region's indices are ENSO, NAO, AMO, PDO/],
+    [["--values", "FOO=1"], /unknown index "FOO"; this region's indices are PMI, ENSO, WSI/],
     [["--values", "ENSO=warm"], /ENSO must be a decimal number such as 1.2 or -0.5, found "warm"/],
     [["--values", "ENSO=0x10"], /ENSO must be a decimal number/],
     [["--values", "ENSO=1,ENSO=2"], /ENSO is given more than once/],
