@@ -36,6 +36,45 @@ export class BrowserNotFoundError extends Error {
   override name = "BrowserNotFoundError";
 }
 
+/** How every browser message ends: the two ways to choose another browser. */
+export const CHOOSE_BROWSER_HINT = "choose another with --browser PATH or FIREPHASE_BROWSER";
+
+/**
+ * Thrown when a browser was found (or named) but does not start as one: `could not start the
+ * browser <path> (<what happened>): choose another with --browser PATH or FIREPHASE_BROWSER`.
+ * A subclass of {@link BrowserNotFoundError}, so a caller that maps that error to a usage error
+ * (exit 2) maps this one too. The message never carries a third-party link.
+ *
+ * @example
+ * new BrowserLaunchError("/bin/false", "it exited with code 1 before it was ready").message;
+ * // => "could not start the browser /bin/false (it exited with code 1 before it was ready): choose another with --browser PATH or FIREPHASE_BROWSER"
+ */
+export class BrowserLaunchError extends BrowserNotFoundError {
+  override name = "BrowserLaunchError";
+  /** The executable that was tried. */
+  readonly executablePath: string;
+  /** What happened, in plain words. */
+  readonly reason: string;
+  constructor(executablePath: string, reason: string, source?: BrowserSource) {
+    const from = source === "env" ? "named by FIREPHASE_BROWSER; " : "";
+    super(`could not start the browser ${executablePath} (${from}${reason}): ${CHOOSE_BROWSER_HINT}`);
+    this.executablePath = executablePath;
+    this.reason = reason;
+  }
+}
+
+/** Why a path named by flag or environment cannot be a browser: missing, a folder, or not executable. */
+function notExecutableReason(path: string): string {
+  try {
+    const found = statSync(path);
+    if (found.isDirectory()) return "it is a folder";
+    if (!found.isFile()) return "it is not a regular file";
+    return "it is not executable";
+  } catch {
+    return "no such file";
+  }
+}
+
 /** Program names looked up on PATH, in order. */
 export const SYSTEM_BROWSER_NAMES: readonly string[] = Object.freeze([
   "chromium",
@@ -139,8 +178,10 @@ async function unpackWithLock(): Promise<string> {
  *
  * @param options - see {@link FindBrowserOptions}; all optional.
  * @returns the executable path and where it came from.
- * @throws BrowserNotFoundError when the flag or environment names a path that is not an
- *   executable file, or when nothing is found and the bundled browser cannot be unpacked.
+ * @throws BrowserLaunchError (a BrowserNotFoundError) when the flag or environment names a path
+ *   that is not an executable file ("could not start the browser <path> (no such file): choose
+ *   another with --browser PATH or FIREPHASE_BROWSER"); BrowserNotFoundError when nothing is
+ *   found and the bundled browser cannot be unpacked.
  * @example
  * await findBrowser({ explicit: "/usr/bin/chromium" }); // => { executablePath: "/usr/bin/chromium", source: "flag" }
  * @see @sparticuz/chromium README; puppeteer-core `launch({ executablePath })`.
@@ -149,12 +190,13 @@ export async function findBrowser(options: FindBrowserOptions = {}): Promise<Fou
   const env = options.env ?? process.env;
   const isExecutable = options.isExecutable ?? defaultIsExecutable;
   if (options.explicit !== undefined) {
-    if (!isExecutable(options.explicit)) throw new BrowserNotFoundError(`--browser: no executable browser at ${options.explicit}`);
+    if (options.explicit.trim() === "") throw new BrowserNotFoundError(`--browser is empty: give the path of a Chrome or Chromium, or leave it out to use FIREPHASE_BROWSER or a found browser`);
+    if (!isExecutable(options.explicit)) throw new BrowserLaunchError(options.explicit, notExecutableReason(options.explicit), "flag");
     return { executablePath: options.explicit, source: "flag" };
   }
   const fromEnv = env["FIREPHASE_BROWSER"];
   if (fromEnv !== undefined && fromEnv !== "") {
-    if (!isExecutable(fromEnv)) throw new BrowserNotFoundError(`FIREPHASE_BROWSER: no executable browser at ${fromEnv}`);
+    if (!isExecutable(fromEnv)) throw new BrowserLaunchError(fromEnv, notExecutableReason(fromEnv), "env");
     return { executablePath: fromEnv, source: "env" };
   }
   const pathFolders = (env["PATH"] ?? "").split(delimiter).filter((folder) => folder !== "");
@@ -175,7 +217,7 @@ export async function findBrowser(options: FindBrowserOptions = {}): Promise<Fou
   } catch (error) {
     const detail = error instanceof Error ? error.message : String(error);
     throw new BrowserNotFoundError(
-      `no browser found: pass --browser PATH or set FIREPHASE_BROWSER, or install Chrome/Chromium (bundled Chromium failed: ${detail})`,
+      `no browser found: choose one with --browser PATH or FIREPHASE_BROWSER, or install Chrome or Chromium (the bundled Chromium failed: ${detail})`,
     );
   }
 }

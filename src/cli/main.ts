@@ -2,22 +2,44 @@
 import { realpathSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Command } from "commander";
-import { briefCommand } from "./brief.js";
-import { calibrateCommand } from "./calibrate.js";
-import { checkCommand } from "./check.js";
 import { handleError } from "./handleError.js";
-import { outlookCommand } from "./outlook.js";
-import { reviewCommand } from "./review.js";
 import { terminalSafe } from "./terminalText.js";
 import { firephaseVersion } from "./version.js";
 
 /**
- * The firephase program: every command, with commander's exits turned into thrown errors
- * (`exitOverride`) so that {@link runCli} decides the exit code through `handleError`.
+ * Each command and the module that defines it. A module is imported only when its command runs
+ * (or for the program's help), so `check` never loads the browser, the charts or the statistics
+ * libraries, and `--version` loads no command at all: start-up time is paid per module.
+ */
+const COMMANDS: readonly (readonly [string, () => Promise<Command>])[] = [
+  ["check", async () => (await import("./check.js")).checkCommand()],
+  ["calibrate", async () => (await import("./calibrate.js")).calibrateCommand()],
+  ["outlook", async () => (await import("./outlook.js")).outlookCommand()],
+  ["brief", async () => (await import("./brief.js")).briefCommand()],
+  ["review", async () => (await import("./review.js")).reviewCommand()],
+];
+
+/**
+ * The commands the arguments need: the one named first, none for `--version`, else all of them
+ * (help, an unknown command, no arguments).
+ */
+function commandsFor(argv: readonly string[]): readonly (readonly [string, () => Promise<Command>])[] {
+  const first = argv[0];
+  const named = COMMANDS.find(([name]) => name === first);
+  if (named !== undefined) return [named];
+  if (argv.length === 1 && (first === "-V" || first === "--version")) return [];
+  return COMMANDS;
+}
+
+/**
+ * The firephase program, with commander's exits turned into thrown errors (`exitOverride`) so
+ * that {@link runCli} decides the exit code through `handleError`.
  *
+ * @param argv - the arguments the program will parse: only the commands they need are loaded
+ *   (default: none given, so every command is loaded).
  * @returns a fresh program; parse it with `parseAsync(argv, { from: "user" })`
  */
-export function createProgram(): Command {
+export async function createProgram(argv: readonly string[] = []): Promise<Command> {
   const program = new Command("firephase")
     .description(
       "Calibrated odds of a high-fire year from a region's fire-scar record and winter-spring climate-index phases. " +
@@ -32,7 +54,7 @@ export function createProgram(): Command {
       outputError: (text, write) => write(`firephase: ${text.replace(/^error: /, "")}`),
     })
     .showHelpAfterError("(run firephase --help for usage)");
-  for (const command of [checkCommand(), calibrateCommand(), outlookCommand(), briefCommand(), reviewCommand()]) {
+  for (const command of await Promise.all(commandsFor(argv).map(([, load]) => load()))) {
     command.copyInheritedSettings(program);
     command.showHelpAfterError(`(run firephase ${command.name()} --help for usage)`);
     program.addCommand(command);
@@ -52,7 +74,7 @@ export function createProgram(): Command {
 export async function runCli(argv: readonly string[]): Promise<number> {
   process.exitCode = undefined;
   try {
-    await createProgram().parseAsync([...argv], { from: "user" });
+    await (await createProgram(argv)).parseAsync([...argv], { from: "user" });
   } catch (error) {
     handleError(error);
   }
