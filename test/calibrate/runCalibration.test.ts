@@ -55,7 +55,7 @@ describe("runCalibration(workspace)", () => {
     );
     expect(a.contingency).toEqual(expect.objectContaining({ chiSquare: expect.any(Number), df: 2, pValue: expect.any(Number) }));
     expect(a.contingency.perPhase[0]).toEqual(expect.objectContaining({ label: "low", fisherPValue: expect.any(Number), residual: expect.any(Number) }));
-    expect(a.sea).toEqual(expect.objectContaining({ lags: [-6, -5, -4, -3, -2, -1, 0, 1, 2, 3, 4], mean: expect.any(Array), ci95: expect.any(Array), ci99: expect.any(Array), pValue: expect.any(Array) }));
+    expect(a.sea).toEqual(expect.objectContaining({ lags: [-4, -3, -2, -1, 0, 1, 2], mean: expect.any(Array), ci95: expect.any(Array), ci99: expect.any(Array), pValue: expect.any(Array) }));
     expect(a.aggregated).toEqual(expect.objectContaining({ blockYears: 5, lags: [-2, -1, 0, 1, 2], r: expect.any(Array), pValue: expect.any(Array) }));
   });
 });
