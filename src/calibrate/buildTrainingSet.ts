@@ -1,6 +1,6 @@
-import { activityCategories } from "../record/activityCategories.js";
+import { activityCategories, categoryOf, TERCILE_QUANTILE_RULE, TERCILE_TIE_RULE } from "../record/activityCategories.js";
 import { selectFireYears } from "../record/selectFireYears.js";
-import type { ActivityCategories, FireYearSelection } from "../record/types.js";
+import type { ActivityCategories, ActivityCategory, FireYearSelection } from "../record/types.js";
 import { classifyPhase, phaseDefinition } from "../climate/phaseDefinition.js";
 import type { PhaseDefinition } from "../climate/types.js";
 import type { IndexSettings } from "../workspace/types.js";
@@ -33,12 +33,27 @@ export interface TrainingInput {
   readonly measure: "fraction" | "sites";
   /** Years outside the training set whose activity category should be given with the training cuts. */
   readonly classify?: readonly number[];
+  /**
+   * A fixed event definition (the hindcast's, from the whole calibration period): when given, the fire years
+   * of `years` are those with activity ≥ threshold and > 0, and the categories use these tercile cuts,
+   * instead of both being learned from `years`.
+   */
+  readonly event?: { readonly threshold: number | null; readonly lowerCut: number; readonly upperCut: number };
 }
 
-/** Builds a {@link TrainingSet}: fire years, tercile categories and phase definitions from `years` only. */
+/**
+ * Builds a {@link TrainingSet}: fire years, tercile categories and phase definitions from `years` only (or,
+ * with `event`, fire years and categories under that fixed definition and phase definitions from `years`).
+ */
 export function buildTrainingSet(input: TrainingInput): TrainingSet {
-  const fireYears = selectFireYears(input.activity, input.years, input.top, input.measure);
-  const categories = activityCategories(input.activity, input.years, input.classify ?? []);
+  const fireYears =
+    input.event === undefined
+      ? selectFireYears(input.activity, input.years, input.top, input.measure)
+      : fixedFireYears(input.activity, input.years, input.top, input.measure, input.event.threshold);
+  const categories =
+    input.event === undefined
+      ? activityCategories(input.activity, input.years, input.classify ?? [])
+      : fixedCategories(input.activity, input.years, input.classify ?? [], input.event.lowerCut, input.event.upperCut);
   const definitions = new Map<string, PhaseDefinition>();
   const phaseOf = new Map<string, Map<number, number>>();
   for (const settings of input.indexSettings) {
@@ -88,4 +103,52 @@ export function phaseCounts(training: TrainingSet, index: string): PhaseCount[] 
     if (category !== undefined) cell.categories[category] += 1;
   }
   return counts;
+}
+
+function fixedFireYears(
+  activity: ReadonlyMap<number, number>,
+  years: readonly number[],
+  top: number,
+  measure: "fraction" | "sites",
+  threshold: number | null,
+): FireYearSelection {
+  const chosen =
+    threshold === null
+      ? []
+      : years.filter((year) => {
+          const value = activity.get(year) ?? Number.NaN;
+          return value >= threshold && value > 0;
+        });
+  const sorted = [...chosen].sort((a, b) => a - b);
+  return { top, measure, threshold, years: sorted, realisedShare: years.length === 0 ? 0 : sorted.length / years.length, calibrationYears: years.length };
+}
+
+function fixedCategories(
+  activity: ReadonlyMap<number, number>,
+  years: readonly number[],
+  classify: readonly number[],
+  lowerCut: number,
+  upperCut: number,
+): ActivityCategories {
+  const byYear = new Map<number, ActivityCategory>();
+  const counts = { below: 0, near: 0, above: 0 };
+  for (const year of years) {
+    const category = categoryOf(activity.get(year) ?? Number.NaN, lowerCut, upperCut);
+    byYear.set(year, category);
+    counts[category] += 1;
+  }
+  for (const year of classify) byYear.set(year, categoryOf(activity.get(year) ?? Number.NaN, lowerCut, upperCut));
+  const n = years.length;
+  return {
+    lowerCut,
+    upperCut,
+    quantileRule: TERCILE_QUANTILE_RULE,
+    tieRule: TERCILE_TIE_RULE,
+    byYear,
+    realisedShares: {
+      below: n === 0 ? Number.NaN : counts.below / n,
+      near: n === 0 ? Number.NaN : counts.near / n,
+      above: n === 0 ? Number.NaN : counts.above / n,
+    },
+  };
 }

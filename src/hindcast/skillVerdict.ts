@@ -1,32 +1,43 @@
+/** Largest permutation p-value of the Brier skill score that counts as skill. */
+export const SKILL_P_MAX = 0.05;
+
 /** The stated rule by which the hindcast decides whether the method has skill. */
 export const SKILL_RULE =
   "The method has skill only when its hindcast Brier skill score is above 0 (it beat the long-term average) " +
-  "AND the lower end of the ROC area's 95% interval (area − 1.96 × standard error) is above 0.5 (it told high-fire years from other years better than chance).";
+  "AND that score is hard to reach by chance: when the fire record is shuffled across years in blocks (keeping its year-to-year " +
+  "persistence but breaking any link with the indices) and the whole hindcast is rerun, at most 5% of the shuffles " +
+  "score as well (permutation p-value, counting the observed record, at most 0.05).";
 
 /**
- * The skill verdict in plain words, by {@link SKILL_RULE}. Scores that could not be computed give
- * "no skill shown".
+ * The skill verdict in plain words, by {@link SKILL_RULE}: "Some skill" only when the Brier skill score is
+ * above 0 and its permutation p-value is at most {@link SKILL_P_MAX}. Scores or p-values that could not be
+ * computed give "No skill shown".
+ *
+ * @param brierSkillScore - the hindcast Brier skill score, or null when it could not be computed.
+ * @param skillPValue - the permutation p-value of that score, (b + 1)/(m + 1), or null when not computed.
+ * @returns whether the method has skill, and the verdict sentence.
+ * @example
+ * skillVerdict(0.04, 0.012).hasSkill; // => true
+ * skillVerdict(0.04, 0.2).hasSkill; // => false (chance reaches this score too often)
  */
-export function skillVerdict(
-  brierSkillScore: number | null,
-  rocArea: number | null,
-  rocStandardError: number | null,
-): { hasSkill: boolean; text: string } {
-  if (brierSkillScore === null || rocArea === null || rocStandardError === null) {
+export function skillVerdict(brierSkillScore: number | null, skillPValue: number | null): { hasSkill: boolean; text: string } {
+  if (brierSkillScore === null || skillPValue === null) {
     return {
       hasSkill: false,
       text: "No skill shown: the hindcast has too little data to show that this method forecasts high-fire years better than the long-term average. Treat the odds as no better than the average year.",
     };
   }
-  const rocLower = rocArea - 1.959963984540054 * rocStandardError;
-  if (brierSkillScore > 0 && rocLower > 0.5) {
+  if (brierSkillScore > 0 && skillPValue <= SKILL_P_MAX) {
     return {
       hasSkill: true,
-      text: "Some skill: in the hindcast this method forecast high-fire years better than the long-term average, but a good hindcast is no guarantee for any single season.",
+      text: "Some skill: in the hindcast this method forecast high-fire years better than the long-term average, more often than shuffled fire records did, but a good hindcast is no guarantee for any single season.",
     };
   }
   return {
     hasSkill: false,
-    text: "No skill: in the hindcast this method did not forecast high-fire years better than the long-term average. Treat these odds as no better than the average year.",
+    text:
+      brierSkillScore > 0
+        ? "No skill: in the hindcast this method beat the long-term average only by a margin that shuffled fire records also reached, so it may be chance. Treat these odds as no better than the average year."
+        : "No skill: in the hindcast this method did not forecast high-fire years better than the long-term average. Treat these odds as no better than the average year.",
   };
 }

@@ -13,14 +13,19 @@ export interface ReliabilityBin {
 export interface HindcastYear {
   readonly year: number;
   readonly probability: number;
+  /** The left-in share of high-fire years (what the rule says with no index information). */
   readonly climatology: number;
+  /** Whether this year was a high-fire year under the event fixed from the whole period. */
   readonly fireYear: boolean;
   readonly categoryProbabilities: readonly [number, number, number];
-  /** The left-in category shares, the climatological forecast for the RPSS. */
+  /** The left-in category shares (what the rule says with no index information). */
   readonly climatologyCategories: readonly [number, number, number];
   readonly observedCategory: 0 | 1 | 2;
-  /** Which past years the forecast was read from: a joint phase, a single index phase, or climatology. */
-  readonly basis: "joint" | "single" | "climatology";
+  /**
+   * Which past years the forecast was read from: a joint phase, a single index phase, or climatology (all
+   * left-in years); "curve" for a curve-rule forecast read from a fitted response curve.
+   */
+  readonly basis: "joint" | "single" | "climatology" | "curve";
 }
 
 /** Moving-block bootstrap intervals of the hindcast scores (C8). An interval is null when it cannot be computed. */
@@ -71,4 +76,10 @@ export interface Skill {
   /** The curve rule's hindcast in the same folds (issue 11); null (with curveRuleReason) when not run. */
   readonly curveRule?: Skill | null;
   readonly curveRuleReason?: string;
+  /** Why `intervals` is null. */
+  readonly intervalsReason?: string;
+  /** Why rps/rpss are null when the scores exist (the curve rule has no category odds of its own). */
+  readonly rpssReason?: string;
+  /** The reference (climatological) forecast of BSS and RPSS: the whole-period shares, and the rule in words. */
+  readonly reference?: { readonly fireYear: number; readonly categories: readonly [number, number, number]; readonly rule: string };
 }

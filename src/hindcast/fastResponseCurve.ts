@@ -1,0 +1,302 @@
+import { fitResponseCurve, readResponseCurve } from "../calibrate/fitResponseCurve.js";
+import { chiSquareUpperTail } from "../stats/chiSquareIndependence.js";
+
+/** Convergence tolerance and iteration cap of logisticRegression (C1), which this must reproduce. */
+const TOLERANCE = 1e-10;
+const MAX_ITERATIONS = 100;
+/** Fewest years of the rarer outcome before fitResponseCurve tries the quadratic form (10 per slope). */
+const QUADRATIC_MIN_RARER = 20;
+/** Below this relative Gram–Schmidt remainder the design is left to logisticRegression's own rank check. */
+const RANK_MARGIN = 1e-6;
+
+/** Reusable buffers of {@link readFastResponseCurve} (one per design). */
+export interface CurveScratch {
+  readonly x: Float64Array;
+  readonly y: Uint8Array;
+  /** Warm starts: the last linear and quadratic coefficients (a start only; the optimum does not depend on it). */
+  readonly linearStart: Float64Array;
+  readonly quadraticStart: Float64Array;
+}
+
+export function curveScratch(size: number): CurveScratch {
+  return { x: new Float64Array(size), y: new Uint8Array(size), linearStart: new Float64Array(2), quadraticStart: new Float64Array(3) };
+}
+
+/**
+ * The curve rule's reading (fitResponseCurve then readResponseCurve, as the outlook uses them) at `value`,
+ * computed fast for the hindcast's folds: the same models fitted by the same criterion — maximum likelihood by
+ * Newton–Raphson with step halving, stopped when both the largest step and the change in log-likelihood are
+ * below 1e-10; the quadratic form tried when the rarer outcome has at least 20 years and the index at least
+ * 3 distinct values, and used only when its likelihood-ratio p < 0.05 and its AIC is lower — but on typed
+ * arrays, from a warm start, and without step halving (see newton). The log-likelihood is strictly concave, so the optimum (to rounding) does not
+ * depend on the start. Whenever the plain maximum-likelihood path does not apply — separated outcomes (Firth's
+ * penalized fit is then used), non-convergence, a nearly singular design — the case is handed to
+ * fitResponseCurve itself, so the rule is always the outlook's.
+ *
+ * @param m - number of cases in scratch.x / scratch.y (the left-in years with a value of the index).
+ * @param value - the held-out year's index value (finite).
+ * @returns the fitted probability at the value clamped to the cases' range, or NaN when no curve can be
+ *   fitted (fitResponseCurve gives null).
+ */
+export function readFastResponseCurve(scratch: CurveScratch, m: number, value: number): number {
+  const { x, y } = scratch;
+  if (m === 0) return Number.NaN;
+  let events = 0;
+  let min = Infinity;
+  let max = -Infinity;
+  let eventMin = Infinity;
+  let eventMax = -Infinity;
+  let otherMin = Infinity;
+  let otherMax = -Infinity;
+  let distinct = 0;
+  let first = 0;
+  let second = 0;
+  for (let i = 0; i < m; i += 1) {
+    const v = x[i] as number;
+    if (v < min) min = v;
+    if (v > max) max = v;
+    if (y[i] === 1) {
+      events += 1;
+      if (v < eventMin) eventMin = v;
+      if (v > eventMax) eventMax = v;
+    } else {
+      if (v < otherMin) otherMin = v;
+      if (v > otherMax) otherMax = v;
+    }
+    if (distinct < 3) {
+      if (distinct === 0) {
+        first = v;
+        distinct = 1;
+      } else if (distinct === 1) {
+        if (v !== first) {
+          second = v;
+          distinct = 2;
+        }
+      } else if (v !== first && v !== second) distinct = 3;
+    }
+  }
+  if (events === 0 || events === m || !(max > min)) return Number.NaN;
+  const separated = otherMax <= eventMin || eventMax <= otherMin;
+  if (separated || relativeRemainder(x, m, 2) < RANK_MARGIN) return slowReading(scratch, m, value);
+  const linear = newton(x, y, m, 2, scratch.linearStart);
+  if (linear === null) return slowReading(scratch, m, value);
+  let useQuadratic = false;
+  const rarer = Math.min(events, m - events);
+  if (rarer >= QUADRATIC_MIN_RARER && distinct >= 3) {
+    if (relativeRemainder(x, m, 3) < RANK_MARGIN) return slowReading(scratch, m, value);
+    const quadratic = newton(x, y, m, 3, scratch.quadraticStart);
+    if (quadratic === null) return slowReading(scratch, m, value);
+    const likelihoodRatio = Math.max(0, 2 * (quadratic - linear));
+    const pValue = chiSquareUpperTail(likelihoodRatio, 1);
+    const linearAic = -2 * linear + 2 * 2;
+    const quadraticAic = -2 * quadratic + 2 * 3;
+    useQuadratic = pValue < 0.05 && quadraticAic < linearAic;
+  }
+  const readAt = value > max ? max : value < min ? min : value;
+  const c = useQuadratic ? scratch.quadraticStart : scratch.linearStart;
+  let logit = 0;
+  logit += (c[0] as number) * 1;
+  logit += (c[1] as number) * readAt;
+  if (useQuadratic) logit += (c[2] as number) * (readAt * readAt);
+  return logit >= 0 ? 1 / (1 + Math.exp(-logit)) : Math.exp(logit) / (1 + Math.exp(logit));
+}
+
+function slowReading(scratch: CurveScratch, m: number, value: number): number {
+  const values = Array.from(scratch.x.subarray(0, m));
+  const outcomes = Array.from(scratch.y.subarray(0, m), (outcome) => outcome === 1);
+  const fitted = fitResponseCurve(values, outcomes);
+  return fitted.curve === null ? Number.NaN : readResponseCurve(fitted.curve, value).estimate;
+}
+
+/** Gram–Schmidt remainder of the last column of [1, x, x²] (first `columns` of them) relative to its length. */
+function relativeRemainder(x: Float64Array, m: number, columns: 2 | 3): number {
+  // Column norms and projections in closed form: center x (and x² after removing 1 and x).
+  let s1 = 0;
+  for (let i = 0; i < m; i += 1) s1 += x[i] as number;
+  const mean = s1 / m;
+  let sxx = 0;
+  let length2 = 0;
+  for (let i = 0; i < m; i += 1) {
+    const d = (x[i] as number) - mean;
+    sxx += d * d;
+    length2 += (x[i] as number) * (x[i] as number);
+  }
+  if (columns === 2) return Math.sqrt(sxx) / Math.sqrt(length2);
+  let sq = 0;
+  let sqx = 0;
+  let length4 = 0;
+  for (let i = 0; i < m; i += 1) {
+    const v = x[i] as number;
+    sq += v * v;
+    length4 += v * v * v * v;
+  }
+  const meanSq = sq / m;
+  let residual2 = 0;
+  for (let i = 0; i < m; i += 1) {
+    const d = (x[i] as number) - mean;
+    sqx += ((x[i] as number) * (x[i] as number) - meanSq) * d;
+  }
+  const slope = sxx > 0 ? sqx / sxx : 0;
+  for (let i = 0; i < m; i += 1) {
+    const v = x[i] as number;
+    const r = v * v - meanSq - slope * (v - mean);
+    residual2 += r * r;
+  }
+  return Math.sqrt(residual2) / Math.sqrt(length4);
+}
+
+/** Below this largest step the iteration is in Newton's quadratic convergence region: no step halving needed. */
+const CLOSE = 1e-3;
+/** A step below this is followed (quadratic convergence) by one below the tolerance: compute the log-likelihood. */
+const LIKELY_LAST = 1e-5;
+const MAX_STEP_HALVINGS = 40;
+
+/**
+ * Maximum likelihood of logit P(y = 1) = b0 + b1·x (+ b2·x²) by Newton–Raphson with step halving from
+ * `coefficients` (updated in place), stopped when the largest step is below 1e-10: a Newton step that small
+ * means the score is zero to rounding, i.e. the unique optimum of the strictly concave log-likelihood, the
+ * point logisticRegression converges to. Once the steps are small (below 1e-3) the log-likelihood is computed
+ * only where it is needed. If the warm start fails the fit is retried from 0. Returns the log-likelihood at the
+ * optimum, or null when it did not converge (the caller then uses the reference fit).
+ */
+function newton(x: Float64Array, y: Uint8Array, m: number, size: 2 | 3, coefficients: Float64Array): number | null {
+  const b = coefficients;
+  const warm = Number.isFinite(b[0] as number) && Number.isFinite(b[1] as number) && (size === 2 || Number.isFinite(b[2] as number));
+  if (warm) {
+    const result = newtonFrom(x, y, m, size, b);
+    if (result !== null) return result;
+  }
+  b.fill(0);
+  return newtonFrom(x, y, m, size, b);
+}
+
+function newtonFrom(x: Float64Array, y: Uint8Array, m: number, size: 2 | 3, b: Float64Array): number | null {
+  let previousStep = Infinity;
+  let logLikelihood = evaluate(x, y, m, size, b[0] as number, b[1] as number, size === 3 ? (b[2] as number) : 0, true);
+  if (!Number.isFinite(logLikelihood)) return null;
+  let known = true;
+  for (let iteration = 0; iteration < MAX_ITERATIONS; iteration += 1) {
+    const step = solve(size);
+    if (step === null) return null;
+    const s0 = step[0] as number;
+    const s1 = step[1] as number;
+    const s2 = size === 3 ? (step[2] as number) : 0;
+    const largest = Math.max(Math.abs(s0), Math.abs(s1), Math.abs(s2));
+    if (!Number.isFinite(largest)) return null;
+    const base0 = b[0] as number;
+    const base1 = b[1] as number;
+    const base2 = size === 3 ? (b[2] as number) : 0;
+    if (largest < TOLERANCE) {
+      b[0] = base0 + s0;
+      b[1] = base1 + s1;
+      if (size === 3) b[2] = base2 + s2;
+      // The log-likelihood at the last point is that of the optimum to rounding (the step is below 1e-10).
+      return known ? logLikelihood : evaluate(x, y, m, size, b[0] as number, b[1] as number, size === 3 ? (b[2] as number) : 0, true);
+    }
+    const close = previousStep < CLOSE && largest < CLOSE;
+    let scale = 1;
+    let halvings = 0;
+    let candidate = 0;
+    for (; halvings <= MAX_STEP_HALVINGS; halvings += 1) {
+      b[0] = base0 + scale * s0;
+      b[1] = base1 + scale * s1;
+      if (size === 3) b[2] = base2 + scale * s2;
+      // Close to the optimum the log-likelihood is only needed where the next step is likely the last.
+      const needed = !close || largest < LIKELY_LAST;
+      candidate = evaluate(x, y, m, size, b[0] as number, b[1] as number, size === 3 ? (b[2] as number) : 0, needed);
+      known = needed;
+      if (close || (Number.isFinite(candidate) && candidate >= logLikelihood - TOLERANCE)) break;
+      scale /= 2;
+    }
+    if (halvings > MAX_STEP_HALVINGS) return null;
+    logLikelihood = candidate;
+    previousStep = largest * scale;
+  }
+  return null;
+}
+
+/** Score and information at the last evaluation (sums over the cases). */
+const score = new Float64Array(3);
+const information = new Float64Array(9);
+const stepOut = new Float64Array(3);
+
+/** Log-likelihood at (c0, c1, c2) (0 unless asked for), leaving the score and information there in the module buffers. */
+function evaluate(x: Float64Array, y: Uint8Array, m: number, size: 2 | 3, c0: number, c1: number, c2: number, withLikelihood: boolean): number {
+  let logLikelihood = 0;
+  let g0 = 0;
+  let g1 = 0;
+  let g2 = 0;
+  let h00 = 0;
+  let h01 = 0;
+  let h02 = 0;
+  let h11 = 0;
+  let h12 = 0;
+  let h22 = 0;
+  for (let i = 0; i < m; i += 1) {
+    const v = x[i] as number;
+    const v2 = v * v;
+    const linear = size === 3 ? c0 + c1 * v + c2 * v2 : c0 + c1 * v;
+    const e = Math.exp(-Math.abs(linear));
+    const outcome = y[i] as number;
+    if (withLikelihood) logLikelihood += outcome * linear - (Math.max(linear, 0) + Math.log1p(e));
+    const probability = linear >= 0 ? 1 / (1 + e) : e / (1 + e);
+    const residual = outcome === 1 ? (linear >= 0 ? e / (1 + e) : 1 / (1 + e)) : -probability;
+    const weight = e / ((1 + e) * (1 + e));
+    g0 += residual;
+    g1 += residual * v;
+    h00 += weight;
+    h01 += weight * v;
+    h11 += weight * v2;
+    if (size === 3) {
+      g2 += residual * v2;
+      h02 += weight * v2;
+      h12 += weight * v2 * v;
+      h22 += weight * v2 * v2;
+    }
+  }
+  score[0] = g0;
+  score[1] = g1;
+  score[2] = g2;
+  information[0] = h00;
+  information[1] = h01;
+  information[2] = h02;
+  information[4] = h11;
+  information[5] = h12;
+  information[8] = h22;
+  return logLikelihood;
+}
+
+/** Solves information · step = score (2×2 or 3×3, symmetric positive definite); null when singular. */
+function solve(size: 2 | 3): Float64Array | null {
+  const a = information[0] as number;
+  const b = information[1] as number;
+  const d = information[4] as number;
+  if (size === 2) {
+    const determinant = a * d - b * b;
+    if (!(determinant > 0) || !Number.isFinite(determinant)) return null;
+    stepOut[0] = (d * (score[0] as number) - b * (score[1] as number)) / determinant;
+    stepOut[1] = (a * (score[1] as number) - b * (score[0] as number)) / determinant;
+    return stepOut;
+  }
+  const c = information[2] as number;
+  const e = information[5] as number;
+  const f = information[8] as number;
+  // Cholesky of [[a, b, c], [b, d, e], [c, e, f]].
+  const l00 = Math.sqrt(a);
+  const l10 = b / l00;
+  const l20 = c / l00;
+  const l11sq = d - l10 * l10;
+  if (!(l11sq > 0)) return null;
+  const l11 = Math.sqrt(l11sq);
+  const l21 = (e - l20 * l10) / l11;
+  const l22sq = f - l20 * l20 - l21 * l21;
+  if (!(l22sq > 0) || !Number.isFinite(l22sq)) return null;
+  const l22 = Math.sqrt(l22sq);
+  const z0 = (score[0] as number) / l00;
+  const z1 = ((score[1] as number) - l10 * z0) / l11;
+  const z2 = ((score[2] as number) - l20 * z0 - l21 * z1) / l22;
+  stepOut[2] = z2 / l22;
+  stepOut[1] = (z1 - l21 * (stepOut[2] as number)) / l11;
+  stepOut[0] = (z0 - l10 * (stepOut[1] as number) - l20 * (stepOut[2] as number)) / l00;
+  return stepOut;
+}
