@@ -17,7 +17,7 @@ import { reliabilityDiagram } from "./charts/reliabilityDiagram.js";
 import { rocCurveChart } from "./charts/rocCurveChart.js";
 import { seaChart } from "./charts/seaChart.js";
 import { stabilityChart } from "./charts/stabilityChart.js";
-import { formatCount, formatDecimal, formatLongDate, formatPValue } from "./formatValues.js";
+import { clipText, formatCount, formatDecimal, formatLongDate, formatMoment, formatNumber, formatPValue, isFiniteNumber } from "./formatValues.js";
 import { markdownBlocks, type MarkdownBlock } from "./markdownBlocks.js";
 import { METHOD_CITATIONS, type MethodCitation } from "./methodCitations.js";
 import { trustSvg, type TrustedMarkup } from "./trustedMarkup.js";
@@ -91,6 +91,8 @@ export interface BriefingView {
     readonly seasonText: string;
     readonly dataThroughText: string;
     readonly calibrationText: string;
+    /** "Prepared by … · Contact: …" from region.json `preparedBy` / `contact`; null when neither is given. */
+    readonly preparedText: string | null;
   };
   readonly headline: {
     readonly available: boolean;
@@ -99,8 +101,11 @@ export interface BriefingView {
     readonly base: ProbabilityText;
     /** Whether this season differs from an average year beyond the uncertainty, in words (plus the ratio when it does). */
     readonly comparison: string;
+    /** The past years the odds are read from, in plain words (no test statistics). */
     readonly basis: string;
     readonly definition: string;
+    /** How the rule chose those years, with its test statistics: a footnote on page 1. */
+    readonly methodNote: string;
   };
   readonly categories: {
     readonly rows: readonly { readonly label: string; readonly chance: ProbabilityText; readonly averageYear: string }[];
@@ -112,11 +117,18 @@ export interface BriefingView {
       readonly index: string;
       readonly value: string;
       readonly phase: string;
+      /** Distance from the calibration mean, e.g. "+1.3 SD". */
       readonly zText: string;
       readonly nearBoundary: boolean;
       readonly note: string;
-      /** Where the value came from, e.g. "region.json", "--values". */
+      /** Where the value came from, e.g. "region.json", "--values" (printed in a page-1 footnote). */
       readonly source: string;
+      /** The index's season window and scale, e.g. "Dec–Mar mean, standardized" or "yearly value". */
+      readonly scaleText: string;
+      /** True when the value is computed from part of its window only. */
+      readonly provisional: boolean;
+      /** "provisional: 3 of the window's months so far (2026-12 to 2027-02)"; empty when not provisional. */
+      readonly provisionalText: string;
     }[];
     readonly missingText: string | null;
   };
@@ -128,6 +140,10 @@ export interface BriefingView {
     readonly verdict: string;
     readonly summary: string;
   };
+  /** The "How to read this page" box on page 1: three short lines. */
+  readonly howToRead: readonly string[];
+  /** Small print at the foot of page 1 (value sources, how the odds were chosen). */
+  readonly footnotes: readonly string[];
   readonly cautions: readonly string[];
   /** The outlook's plain-language warnings, shown in the "Read with care" box on page 1. */
   readonly readWithCare: readonly string[];
@@ -442,6 +458,15 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
   };
 }
 
+/** "Prepared by … · Contact: …" from region.json, read defensively (the fields are optional). */
+function preparedText(settings: Workspace["settings"]): string | null {
+  const fields = settings as { readonly preparedBy?: unknown; readonly contact?: unknown };
+  const preparedBy = typeof fields.preparedBy === "string" && fields.preparedBy.trim() !== "" ? fields.preparedBy.trim() : null;
+  const contact = typeof fields.contact === "string" && fields.contact.trim() !== "" ? fields.contact.trim() : null;
+  if (preparedBy === null && contact === null) return null;
+  return [preparedBy === null ? null : `Prepared by ${preparedBy}`, contact === null ? null : `Contact: ${contact}`].filter((part) => part !== null).join(" \u00b7 ");
+}
+
 /**
  * Build the briefing's view model: every word and number the templates print.
  *
@@ -464,7 +489,13 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
   const period = calibration.period;
   const issuedLong = formatLongDate(outlook.issued);
   const record = compositeFireRecord(workspace.fireRecord, settings.fireYears.minSitesRecording);
-  const lastFireYear = record.years[record.years.length - 1]?.year ?? null;
+  // The usable record: years with enough recording sites to be counted at all.
+  let lastUsableYear: number | null = null;
+  let lastRecordYear: number | null = null;
+  for (const row of record.years) {
+    lastRecordYear = lastRecordYear === null ? row.year : Math.max(lastRecordYear, row.year);
+    if (row.sitesRecording >= settings.fireYears.minSitesRecording) lastUsableYear = lastUsableYear === null ? row.year : Math.max(lastUsableYear, row.year);
+  }
   const indexLast = workspace.indices
     .map((series) => ({ name: series.name, last: lastYearWithValue(series) }))
     .filter((entry): entry is { name: string; last: number } => entry.last !== null);
@@ -571,11 +602,28 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     dataNotes.push(message);
   }
 
+  const labelOf = new Map(outlook.current.map((phase) => [phase.index, phase.label]));
+  const phaseWords = outlook.fireYear.basisIndices.map((name) => `${name} ${labelOf.get(name) ?? ""}`.trim());
+  const plainBasis =
+    outlook.fireYear.basisIndices.length === 0
+      ? `Read from all ${plural(outlook.fireYear.years, "past year", "past years")} (the average year): ` +
+        `${formatCount(outlook.fireYear.fireYears)} of them ${outlook.fireYear.fireYears === 1 ? "was a high-fire year" : "were high-fire years"}.`
+      : `Read from the ${plural(outlook.fireYear.years, "past year", "past years")} with ${phaseWords.join(" and ")}: ` +
+        `${formatCount(outlook.fireYear.fireYears)} of them ${outlook.fireYear.fireYears === 1 ? "was a high-fire year" : "were high-fire years"}.`;
+  const bySource = new Map<string, string[]>();
+  for (const phase of outlook.current) {
+    const names = bySource.get(phase.source) ?? [];
+    names.push(phase.index);
+    bySource.set(phase.source, names);
+  }
+  const sourcesNote =
+    bySource.size === 0 ? "" : `Where this season's values came from: ${[...bySource].map(([source, names]) => `${names.join(", ")} from ${source}`).join("; ")}.`;
+
   const firstSea = calibration.indices[0]?.sea;
   const settingsRows: LabelValue[] = [
     { label: "Calibration period", value: `${period.first}–${period.last} (${formatCount(period.years)} years used)` },
     {
-      label: "Fire years",
+      label: "High-fire years",
       value:
         `top ${topPercent}% of calibration years by ${measureWords}; at least ${settings.fireYears.minSitesRecording} recording sites; ` +
         `threshold ${calibration.fireYears.threshold === null ? NOT_ENOUGH_DATA : formatDecimal(calibration.fireYears.threshold, calibration.fireYears.measure === "fraction" ? 3 : 0)}; ` +
@@ -615,8 +663,14 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       issuedText: `Issued ${issuedLong}`,
       issuedIso: outlook.issued,
       seasonText: `for the ${outlook.season} fire season`,
-      dataThroughText: `Data through: fire record ${lastFireYear ?? "none"}; ${indexThrough}.`,
+      dataThroughText:
+        `Data through: fire record ${lastUsableYear ?? "none usable"}` +
+        (lastUsableYear !== null && lastRecordYear !== null && lastRecordYear > lastUsableYear
+          ? ` (later years have fewer than ${settings.fireYears.minSitesRecording} recording sites)`
+          : "") +
+        `; ${indexThrough}.`,
       calibrationText: `Calibrated on ${period.first}–${period.last} (${formatCount(period.years)} years).`,
+      preparedText: preparedText(settings),
     },
     headline: {
       available: chance.available,
@@ -627,10 +681,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         outlook.fireYear.comparedWithBase === "not distinguishable"
           ? comparisonSentence(outlook.fireYear, outlook.baseRate)
           : `${comparisonSentence(outlook.fireYear, outlook.baseRate)} ${chanceComparison(outlook.fireYear.estimate, outlook.baseRate.estimate)}`.trim(),
-      basis:
-        `Based on ${outlook.fireYear.basis}: ${plural(outlook.fireYear.fireYears, "high-fire year", "high-fire years")} ` +
-        `in ${plural(outlook.fireYear.years, "past year", "past years")}` +
-        (outlook.fireYear.basisIndices.length === 0 ? "." : ` with the same phase${outlook.fireYear.basisIndices.length > 1 ? "s" : ""}.`),
+      basis: plainBasis,
+      methodNote: `How the past years were chosen: ${sentence(outlook.fireYear.basis)}`,
       definition:
         `A high-fire year is one of the top ${topPercent}% of years ${period.first}–${period.last} by the ${measureWords} ` +
         `(${fireYearCount} of ${calibration.fireYears.calibrationYears} years).`,
@@ -653,23 +705,38 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       ),
     },
     currentPhases: {
-      rows: outlook.current.map((phase) => ({
-        index: phase.index,
-        value: formatDecimal(phase.value, 2),
-        phase: phase.label,
-        zText: phase.z !== null && Number.isFinite(phase.z) ? `${signed(phase.z, 1)} SD from the ${period.first}–${period.last} mean` : "distance from the mean not computable (the index does not vary)",
-        nearBoundary: phase.nearBoundary,
-        source: phase.source,
-        note: phase.nearBoundary
-          ? `within ${formatDecimal(methods.nearBoundaryMargin, 2)} of a cut: a small change would change the phase`
-          : "",
-      })),
+      rows: outlook.current.map((phase) => {
+        // Fields the outlook adds for values read from the index files (read defensively).
+        const extra = phase as { readonly window?: string | null; readonly months?: readonly string[]; readonly provisional?: boolean; readonly nearBoundaryMargin?: number };
+        const indexSettings = settings.indices.find((entry) => entry.name === phase.index);
+        const window = extra.window ?? indexSettings?.months ?? null;
+        const units = indexSettings?.units ?? null;
+        const provisional = extra.provisional === true;
+        const months = extra.months ?? [];
+        const margin = isFiniteNumber(extra.nearBoundaryMargin) ? extra.nearBoundaryMargin : methods.nearBoundaryMargin;
+        return {
+          index: phase.index,
+          value: formatNumber(phase.value, 2),
+          phase: phase.label,
+          zText: isFiniteNumber(phase.z) ? `${signed(phase.z, 1)} SD` : "not computable (no spread)",
+          nearBoundary: phase.nearBoundary,
+          source: phase.source,
+          scaleText: `${window === null ? "yearly value" : `${window.replace("-", "\u2013")} mean`}${units === null || units === "" ? "" : `, ${units}`}`,
+          provisional,
+          provisionalText: !provisional
+            ? ""
+            : months.length === 0
+              ? "provisional: the season's months are not all in yet"
+              : `provisional: ${plural(months.length, "month", "months")} of the window so far (${months[0]}${months.length > 1 ? ` to ${months[months.length - 1]}` : ""})`,
+          note: phase.nearBoundary ? `within ${formatNumber(margin, 2)} of a cut: a small change would change the phase` : "",
+        };
+      }),
       missingText: outlook.missing.length === 0 ? null : `No value for this season, left out: ${outlook.missing.join(", ")}.`,
     },
     skill: {
       applies: skillApplies,
       hasSkill: skill.hasSkill,
-      title: !skillApplies ? "Hindcast: does not apply to average-year odds" : "Hindcast",
+      title: !skillApplies ? "Hindcast: no index-based forecast to check" : "Hindcast",
       verdict: skill.verdict,
       summary: !skillApplies
         ? "With no index values there is no index-based forecast to verify."
@@ -679,6 +746,15 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
           `ROC area ${skill.rocArea === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rocArea, 2)}.`
         : `Hindcast scores: ${missing(skill.reason)}.`,
     },
+    howToRead: [
+      "The large figure is this season's chance of a high-fire year, from past years with the same index phases; the range is its 95% interval.",
+      "Set it against an average year: higher odds tilt the season but do not make a bad one certain; odds near average mean the indices say little.",
+      "The hindcast box says whether this method beat the average year on past years it did not see; without skill, plan for an average year.",
+    ],
+    footnotes: [
+      sourcesNote,
+      outlook.current.length === 0 ? "" : `From usual: standard deviations (SD) from the ${period.first}–${period.last} mean of each index.`,
+    ].filter((note) => note !== ""),
     cautions: [
       "This is a statistical outlook built from past fire and climate records. It does not forecast weather, fire danger or any single fire.",
       "Official agency seasonal outlooks and daily fire-danger forecasts come first: use them for operational decisions, and where they differ from this briefing, follow them.",
@@ -749,7 +825,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
           value:
             skill.brierScore === null
               ? NOT_ENOUGH_DATA
-              : `${formatDecimal(skill.brierScore, 3)} (average-year odds: ${skill.brierScoreClimatology === null ? NOT_ENOUGH_DATA : formatDecimal(skill.brierScoreClimatology, 3)})`,
+              : `${formatDecimal(skill.brierScore, 3)} (Brier score of the average-year forecast: ${skill.brierScoreClimatology === null ? NOT_ENOUGH_DATA : formatDecimal(skill.brierScoreClimatology, 3)})`,
           meaning: "mean squared error of the high-fire-year chance; lower is better",
         },
         {
@@ -762,7 +838,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
           value:
             skill.rps === null
               ? NOT_ENOUGH_DATA
-              : `${formatDecimal(skill.rps, 3)} (average-year odds: ${skill.rpsClimatology === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rpsClimatology, 3)}; ${skill.rpsForm})`,
+              : `${formatDecimal(skill.rps, 3)} (ranked probability score of the average-year forecast: ${skill.rpsClimatology === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rpsClimatology, 3)}; ${skill.rpsForm})`,
           meaning: "error of the below / near / above odds; lower is better",
         },
         {

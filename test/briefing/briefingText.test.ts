@@ -2,7 +2,7 @@ import { readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { buildBriefingView, describePhaseRule } from "../../src/briefing/buildBriefingView.js";
-import { formatCount, formatDecimal, formatLongDate, formatPValue } from "../../src/briefing/formatValues.js";
+import { clipText, formatCount, formatDecimal, formatLongDate, formatMoment, formatPValue } from "../../src/briefing/formatValues.js";
 import { inlineRuns, markdownBlocks } from "../../src/briefing/markdownBlocks.js";
 import { renderBriefingHtml, TEMPLATES_DIR } from "../../src/briefing/renderBriefingHtml.js";
 import { trustCss, trustSvg } from "../../src/briefing/trustedMarkup.js";
@@ -14,7 +14,32 @@ describe("formatValues", () => {
     expect(formatDecimal(-0.4236, 2)).toBe("\u22120.42");
     expect(formatDecimal(-0.001, 2)).toBe("0.00");
     expect(formatDecimal(1.2, 2)).toBe("1.20");
-    expect(() => formatDecimal(Number.NaN, 2)).toThrow(RangeError);
+  });
+  it("formatDecimal and formatCount are total: NaN, ±Infinity and huge numbers format or say why", () => {
+    expect(formatDecimal(Number.NaN, 2)).toBe("not computable");
+    expect(formatDecimal(Number.POSITIVE_INFINITY, 2)).toBe("\u221e");
+    expect(formatDecimal(Number.NEGATIVE_INFINITY, 2)).toBe("\u2212\u221e");
+    expect(formatDecimal(1e200, 2)).toBe("1.00 \u00d7 10^200");
+    expect(formatDecimal(-2.5e15, 1)).toBe("\u22122.5 \u00d7 10^15");
+    expect(formatDecimal(999_999_999_999_999 - 1, 0)).toBe("999999999999998");
+    expect(formatDecimal(1.23456, 99)).toBe("1.234560");
+    expect(formatCount(Number.NaN)).toBe("not computable");
+    expect(formatCount(1e200)).toBe("1.0 \u00d7 10^200");
+    expect(formatCount(Number.NEGATIVE_INFINITY)).toBe("\u2212\u221e");
+    // Property: every double gives text without NaN / Infinity / e+ notation.
+    for (const value of [0, -0, 5e-324, 1e21, 1e308, -1e308, Number.MAX_VALUE, Number.MIN_VALUE, 123456.789]) {
+      for (const text of [formatDecimal(value, 2), formatCount(value)]) expect(text).not.toMatch(/NaN|Infinity|e[+-]\d/);
+    }
+  });
+  it("clipText bounds long names with an ellipsis, by whole characters; formatMoment prints UTC", () => {
+    expect(clipText("abcdef", 4)).toBe("abc\u2026");
+    expect(clipText("short")).toBe("short");
+    expect([...clipText("x".repeat(100_000))].length).toBe(120);
+    expect(clipText("\u{1F525}".repeat(10), 5)).toBe("\u{1F525}".repeat(4) + "\u2026");
+    expect(clipText("a\nb\tc")).toBe("a b c");
+    expect(formatMoment("2027-03-10T08:15:42.000Z")).toBe("10 March 2027, 08:15 UTC");
+    expect(formatMoment("2027-03-10T23:59:59+02:00")).toBe("10 March 2027, 21:59 UTC");
+    expect(formatMoment("yesterday")).toBe("yesterday (not a date and time)");
   });
   it("formatPValue(p) prints <0.001, three decimals below 0.01, two above", () => {
     // Agresti A. (2007) An Introduction to Categorical Data Analysis, 2nd ed., Wiley, p. 39, party
@@ -24,7 +49,8 @@ describe("formatValues", () => {
     // Ross S.M., Introduction to Probability and Statistics for Engineers and Scientists, ch. 11 chi-square 2×3
     // worked example (TS = 6.433): p = 0.04010 (recomputed).
     expect(formatPValue(0.0401)).toBe("0.04");
-    expect(() => formatPValue(1.2)).toThrow(RangeError);
+    expect(formatPValue(1.2)).toBe("not computable");
+    expect(formatPValue(Number.NaN)).toBe("not computable");
   });
   it("formatCount(10000) groups thousands", () => {
     expect(formatCount(10000)).toBe("10,000");
@@ -34,8 +60,8 @@ describe("formatValues", () => {
   it('formatLongDate("2027-03-10") is "10 March 2027" and rejects impossible dates', () => {
     expect(formatLongDate("2027-03-10")).toBe("10 March 2027");
     expect(formatLongDate("2028-02-29")).toBe("29 February 2028");
-    expect(() => formatLongDate("2027-02-29")).toThrow(RangeError);
-    expect(() => formatLongDate("10/03/2027")).toThrow(RangeError);
+    expect(formatLongDate("2027-02-29")).toBe("2027-02-29 (not a calendar date)");
+    expect(formatLongDate("10/03/2027")).toBe("10/03/2027 (not a calendar date)");
   });
   it("escapeHtml('<img src=\"x\">') escapes all five special characters", () => {
     expect(escapeHtml(`<img src="x" alt='&'>`)).toBe("&lt;img src=&quot;x&quot; alt=&#39;&amp;&#39;&gt;");
@@ -146,7 +172,8 @@ describe("buildBriefingView(inputs)", () => {
     expect(view.headline.comparison).toBe("The two intervals overlap: this season may not differ from an average year.");
     expect(view.headline.chance.percent).toBe("20%");
     expect(view.headline.chance.interval).toBe("95% interval 13–30%");
-    expect(view.headline.basis).toBe("Based on the ENSO warm phase: 17 high-fire years in 83 past years with the same phase.");
+    expect(view.headline.basis).toBe("Read from the 83 past years with ENSO warm: 17 of them were high-fire years.");
+    expect(view.headline.basis).not.toMatch(/chi-square|q =|p =/);
   });
   it("flags the near-boundary phase and the current phase row", () => {
     expect(view.currentPhases.rows.map((row) => row.nearBoundary)).toEqual([false, true]);
@@ -178,7 +205,9 @@ describe("buildBriefingView(inputs)", () => {
   it("says where each current value came from", () => {
     expect(view.currentPhases.rows.map((row) => row.source)).toEqual(["region.json", "--values"]);
     const html = renderBriefingHtml(view);
-    expect(html).toContain('<td class="source">--values</td>');
+    // On page 1 the sources are a footnote, not a column.
+    expect(html).not.toContain('<td class="source">');
+    expect(view.footnotes[0]).toBe("Where this season's values came from: ENSO from region.json; NAO from --values.");
   });
   it("puts the outlook's warnings in a 'Read with care' box after the headline and skill, before the cautions", () => {
     const warned = buildBriefingView({
@@ -203,7 +232,7 @@ describe("buildBriefingView(inputs)", () => {
   it("with no current values, page 1 says the skill score does not apply (not 'no skill')", () => {
     const average = buildBriefingView({ ...sampleBriefingInputs({ noCurrentValues: true }), toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
     expect(average.skill.applies).toBe(false);
-    expect(average.skill.title).toBe("Hindcast: does not apply to average-year odds");
+    expect(average.skill.title).toBe("Hindcast: no index-based forecast to check");
     expect(average.skill.verdict).toContain("a skill score does not apply");
     const html = renderBriefingHtml(average);
     expect(html).toContain("skill-na");
