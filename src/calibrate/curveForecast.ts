@@ -1,9 +1,9 @@
 import type { IndexValues, TrainingSet } from "./buildTrainingSet.js";
-import { fitResponseCurve, readResponseCurve, type CurveReading } from "./fitResponseCurve.js";
+import { fitResponseCurve, readResponseCurve, type CurveReading, type ResponseCurveOptions } from "./fitResponseCurve.js";
 import type { ForecastCell } from "./forecastCell.js";
 import type { ResponseCurve } from "./types.js";
 
-/** The curve rule's forecast: the curve of the index the phase rule leads with, read at its current value. */
+/** The curve rule's forecast: the curve of the index the phase rule leads with, read at its current value (curve points left out). */
 export interface CurveForecast {
   readonly index: string;
   readonly curve: ResponseCurve;
@@ -42,16 +42,21 @@ export function curveForecast(
   if (index === undefined) return { forecast: null, reason: "the rule selected no index (the long-term average is used)" };
   const value = current.get(index);
   if (value === undefined) return { forecast: null, reason: `no current value of ${index}` };
-  const fitted = fitOnTraining(training, indexValues, index);
+  const fitted = fitOnTraining(training, indexValues, index, { points: false });
   if (fitted.curve === null) return { forecast: null, reason: `the ${index} response curve cannot be fitted: ${fitted.reason}` };
   return { forecast: { index, curve: fitted.curve, reading: readResponseCurve(fitted.curve, value) } };
 }
 
 /**
  * The response curve of one index over a training set: the training years with a value of the index,
- * high-fire year or not (see fitResponseCurve).
+ * high-fire year or not (see fitResponseCurve; `options.points` as there).
  */
-export function fitOnTraining(training: TrainingSet, indexValues: IndexValues, index: string): ReturnType<typeof fitResponseCurve> {
+export function fitOnTraining(
+  training: TrainingSet,
+  indexValues: IndexValues,
+  index: string,
+  options: ResponseCurveOptions = {},
+): ReturnType<typeof fitResponseCurve> {
   const values = indexValues.get(index);
   const x: number[] = [];
   const y: boolean[] = [];
@@ -63,5 +68,5 @@ export function fitOnTraining(training: TrainingSet, indexValues: IndexValues, i
       y.push(training.isFireYear.has(year));
     }
   }
-  return fitResponseCurve(x, y);
+  return fitResponseCurve(x, y, options);
 }

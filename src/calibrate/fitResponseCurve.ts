@@ -19,6 +19,11 @@ const EVENTS_PER_PREDICTOR = 10;
 export const QUADRATIC_RULE =
   "a quadratic term is tried when the rarer outcome has at least 20 years (10 per slope coefficient, Peduzzi et al. 1996) and the index has at least 3 distinct values, and is reported only when it is clearly better than the straight logit: likelihood-ratio test of the quadratic term p < 0.05 (chi-square, 1 df) AND a lower AIC, both fits by the same method";
 
+export interface ResponseCurveOptions {
+  /** Report the curve at {@link CURVE_POINTS} values (default true). */
+  readonly points?: boolean;
+}
+
 export type ResponseCurveResult =
   | { readonly curve: ResponseCurve; readonly reason?: undefined }
   | { readonly curve: null; readonly reason: string };
@@ -39,6 +44,8 @@ export type ResponseCurveResult =
  *
  * @param values - the index value of each calibration year (finite numbers)
  * @param outcomes - whether each of those years was a high-fire year, same length
+ * @param options - `points: false` leaves the reported curve points out (`points: []`), for callers that
+ *   only read the curve at one value (the outlook's rule, resampling); the fit is the same
  * @returns the fitted curve; degenerate cases give `curve: null` and a reason: no years, no high-fire year or
  *   no other year (nothing to fit), fewer than two distinct index values, or a fit that the logistic
  *   regression cannot identify or that does not converge
@@ -55,7 +62,11 @@ export type ResponseCurveResult =
  *   number of events per variable in logistic regression analysis", Journal of Clinical Epidemiology
  *   49(12):1373–1379 (at least 10 events per predictor).
  */
-export function fitResponseCurve(values: readonly number[], outcomes: readonly boolean[]): ResponseCurveResult {
+export function fitResponseCurve(
+  values: readonly number[],
+  outcomes: readonly boolean[],
+  options: ResponseCurveOptions = {},
+): ResponseCurveResult {
   if (values.length !== outcomes.length) throw new RangeError("fitResponseCurve: values and outcomes differ in length");
   for (const value of values) if (!Number.isFinite(value)) throw new RangeError(`fitResponseCurve: value ${value} is not finite`);
   const n = values.length;
@@ -78,7 +89,7 @@ export function fitResponseCurve(values: readonly number[], outcomes: readonly b
   if (problem !== null) return { curve: null, reason: problem };
   const [intercept, slope] = linear.coefficients as [number, number];
   const covariance = linear.covariance;
-  const grid = gridOf(min, max);
+  const grid = options.points === false ? [] : gridOf(min, max);
   const points = grid.map((value) => pointAt(linear.coefficients, covariance, [1, value], value));
   const aic = -2 * linear.logLikelihood + 2 * 2;
   const quadraticResult = fitQuadratic(values, outcomes, linear, aic, grid, events);

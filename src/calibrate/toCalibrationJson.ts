@@ -1,4 +1,4 @@
-import type { Calibration, ModernEra, ResponseCurve } from "./types.js";
+import type { Calibration, IndexCalibration, ModernEra, ResponseCurve } from "./types.js";
 
 /** Schema name of `firephase calibrate --json` (promised interface, README "JSON output"). */
 export const CALIBRATION_SCHEMA = "firephase.calibration/1";
@@ -8,49 +8,8 @@ export const CALIBRATION_SCHEMA = "firephase.calibration/1";
  * byte-identical output. A statistic that cannot be computed is null with a `reason` beside it.
  */
 export function toCalibrationJson(calibration: Calibration): Record<string, unknown> {
-  // Built with Object.fromEntries (own properties), so an index named like a built-in property stays a plain key.
-  const indexEntries: [string, unknown][] = [];
-  for (const index of calibration.indices) {
-    indexEntries.push([index.name, {
-      rule: index.definition.rule,
-      cuts: index.definition.cuts,
-      labels: index.definition.labels,
-      years: index.years,
-      mean: index.mean,
-      sd: index.sd,
-      phases: index.phases.map((phase) => ({
-        label: phase.label,
-        years: phase.years,
-        fireYears: phase.fireYears,
-        probability: phase.probability,
-        ratioToBase: phase.ratioToBase,
-        categories: phase.categories,
-        smallSample: phase.smallSample,
-      })),
-      contingency: index.contingency,
-      sea: {
-        lags: index.sea.lags,
-        mean: index.sea.mean,
-        ci95: index.sea.ci95,
-        ci99: index.sea.ci99,
-        pValue: index.sea.pValue,
-        qValue: index.sea.qValue,
-        eventYears: index.sea.eventYears,
-        poolYears: index.sea.poolYears,
-        draws: index.sea.draws,
-        seed: index.sea.seed,
-        baseline: index.sea.baseline,
-        sampling: index.sea.sampling,
-        percentileRule: index.sea.percentileRule,
-        ...(index.sea.reason === undefined ? {} : { reason: index.sea.reason }),
-      },
-      aggregated: index.aggregated,
-      stability: index.stability,
-      curve: index.curve === undefined || index.curve === null ? null : curveJson(index.curve),
-      ...(index.curve === undefined || index.curve === null ? { curveReason: index.curveReason ?? "the response curve was not computed" } : {}),
-    }]);
-  }
-  const indices = Object.fromEntries(indexEntries);
+  // Object.fromEntries defines own properties, so an index named like a built-in property stays a plain key.
+  const indices = Object.fromEntries(calibration.indices.map((index) => [index.name, indexJson(index)]));
   return {
     schema: CALIBRATION_SCHEMA,
     region: calibration.region,
@@ -139,5 +98,47 @@ function modernJson(modern: ModernEra): Record<string, unknown> {
     homogeneityDefinition: modern.homogeneityDefinition,
     indices,
     warnings: modern.warnings,
+  };
+}
+
+/** JSON form of one index's calibration (`indices.<NAME>`), in a fixed key order. */
+function indexJson(index: IndexCalibration): Record<string, unknown> {
+  return {
+    rule: index.definition.rule,
+    cuts: index.definition.cuts,
+    labels: index.definition.labels,
+    years: index.years,
+    mean: index.mean,
+    sd: index.sd,
+    phases: index.phases.map((phase) => ({
+      label: phase.label,
+      years: phase.years,
+      fireYears: phase.fireYears,
+      probability: phase.probability,
+      ratioToBase: phase.ratioToBase,
+      categories: phase.categories,
+      smallSample: phase.smallSample,
+    })),
+    contingency: index.contingency,
+    sea: {
+      lags: index.sea.lags,
+      mean: index.sea.mean,
+      ci95: index.sea.ci95,
+      ci99: index.sea.ci99,
+      pValue: index.sea.pValue,
+      qValue: index.sea.qValue,
+      eventYears: index.sea.eventYears,
+      poolYears: index.sea.poolYears,
+      draws: index.sea.draws,
+      seed: index.sea.seed,
+      baseline: index.sea.baseline,
+      sampling: index.sea.sampling,
+      percentileRule: index.sea.percentileRule,
+      ...(index.sea.reason === undefined ? {} : { reason: index.sea.reason }),
+    },
+    aggregated: index.aggregated,
+    stability: index.stability,
+    curve: index.curve === undefined || index.curve === null ? null : curveJson(index.curve),
+    ...(index.curve === undefined || index.curve === null ? { curveReason: index.curveReason ?? "the response curve was not computed" } : {}),
   };
 }
