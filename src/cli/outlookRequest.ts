@@ -201,6 +201,12 @@ export function resolveOutlookDates(workspace: Workspace, options: OutlookOption
     if (season > todaySeason + 1) {
       throw fileProblem(`outlook.season ${season} is more than a year after today's ${todaySeason} season; remove it or give --season`);
     }
+    if (season > issuedSeason) {
+      notes.push({
+        code: "season-from-region-json",
+        message: `the season ${season} comes from region.json; an outlook issued ${issued} would otherwise be for ${issuedSeason} (give --season to choose)`,
+      });
+    }
   } else {
     season = issuedSeason;
     if (file.season !== null) {

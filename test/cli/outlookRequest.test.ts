@@ -90,7 +90,12 @@ describe("resolveOutlookDates(workspace, options, today) with a fixed clock", ()
 
   it("takes --issued over region.json and --season over both", () => {
     const workspace = withOutlook({ issued: "1712-03-01", season: 1712, values: { ENSO: 1 } });
-    expect(resolveOutlookDates(workspace, { issued: "1711-12-01" }, today)).toMatchObject({ issued: "1711-12-01", season: 1712, useFileValues: true });
+    expect(resolveOutlookDates(workspace, { issued: "1711-12-01" }, today)).toMatchObject({ issued: "1711-12-01", season: 1712, useFileValues: true, notes: [] });
+    const early = resolveOutlookDates(workspace, { issued: "1711-03-01" }, today);
+    expect(early).toMatchObject({ issued: "1711-03-01", season: 1712, useFileValues: true });
+    expect(early.notes.map((note) => note.message)).toEqual([
+      "the season 1712 comes from region.json; an outlook issued 1711-03-01 would otherwise be for 1711 (give --season to choose)",
+    ]);
     const other = resolveOutlookDates(workspace, { season: "1711" }, today);
     expect(other).toMatchObject({ issued: "1712-03-01", season: 1711, useFileValues: false });
     expect(other.notes.map((note) => note.code)).toContain("values-for-another-season");
