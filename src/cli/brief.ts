@@ -2,29 +2,20 @@ import { mkdir, readFile, rmdir, stat } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
 import { basename, isAbsolute, join, resolve } from "node:path";
 import { Command } from "commander";
-import { buildBriefingView } from "../briefing/buildBriefingView.js";
-import { embeddedFontCss } from "../briefing/embeddedFonts.js";
 import { escapeHtml } from "../briefing/escapeHtml.js";
 import { BrowserNotFoundError, findBrowser } from "../briefing/findBrowser.js";
-import { PdfPrinter, type PaperSize } from "../briefing/printPdf.js";
-import { renderBriefingHtml } from "../briefing/renderBriefingHtml.js";
-import { runCalibration } from "../calibrate/runCalibration.js";
-import { buildOutlook } from "../outlook/buildOutlook.js";
-import { loadWorkspace } from "../workspace/loadWorkspace.js";
-import { progressReporter } from "./calibrate.js";
+// Heavy modules are imported inside runBrief, after the browser launch has begun (briefModules.ts).
+import type { HtmlPrinter, PaperSize } from "../briefing/printPdf.js";
+import { briefModules } from "./briefModules.js";
 import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
 import { writeErr, writeOut } from "./terminalText.js";
 import { addOutlookOptions, resolveOutlookRequest } from "./outlookRequest.js";
 import { firephaseVersion } from "./version.js";
 import { jsonText } from "./printJson.js";
-import { readKeptOutlooks, reviewRegion } from "./keptOutlooks.js";
-import { readKeptOutlook } from "../review/readKeptOutlook.js";
-import { sinceLastBriefing } from "../review/sinceLastBriefing.js";
 import type { Review, SinceLastBriefing } from "../review/types.js";
 import type { Calibration } from "../calibrate/types.js";
 import type { Workspace } from "../workspace/types.js";
-import { toOutlookJson } from "../outlook/toOutlookJson.js";
 import { checkOutputTargets, OutputPathError, outputNameProblem, realTarget, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
 
 /** Options of `firephase brief`, as commander parses them. */
@@ -40,6 +31,8 @@ export interface BriefOptions {
   readonly force?: boolean;
   /** `--no-keep` sets this false: do not keep the outlook in `<region>/issued/`. */
   readonly keep?: boolean;
+  /** `--out-dir`: folder for the default-named PDF (default: the working folder); not with `--out`. */
+  readonly outDir?: string;
 }
 
 /** What `brief` needs from the process; tests pass their own. */
@@ -51,6 +44,8 @@ export interface BriefContext {
   readonly env: Readonly<Record<string, string | undefined>>;
   /** Path of SAFETY.md, printed in the appendix (default: the package's own). */
   readonly safetyPath?: string;
+  /** A printer shared by several briefings (a batch): used as given, never launched or closed here. */
+  readonly printer?: HtmlPrinter;
 }
 
 /** The files a briefing run wrote, and the outlook's notes for the person running it. */
@@ -62,6 +57,8 @@ export interface BriefResult {
   readonly pages: number | null;
   /** The outlook's plain-language warnings (also printed on page 1), for stderr. */
   readonly notes: readonly string[];
+  /** The outlook as `outlook --json` prints it for the same request (a batch's overview reads it). */
+  readonly outlook?: unknown;
 }
 
 /** SAFETY.md of the package (two folders up from src/cli and dist/cli). */
@@ -148,6 +145,7 @@ export async function briefingMemory(
   outlookText: string,
   keptTarget: string | null,
 ): Promise<{ readonly review: Review | null; readonly sinceLast: SinceLastBriefing | null }> {
+  const { readKeptOutlooks, reviewRegion, sinceLastBriefing, readKeptOutlook } = await briefModules();
   const read = await readKeptOutlooks(workspace);
   const earlier = keptTarget === null ? read.kept : read.kept.filter((kept) => resolve(kept.file) !== resolve(keptTarget));
   const review = earlier.length === 0 && read.problems.length === 0 ? null : reviewRegion(workspace, calibration, { kept: earlier, problems: read.problems });
@@ -197,20 +195,26 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   }
   // Bad output locations fail before any work is done.
   await outputChecked(() => checkOutputTargets([outGiven, htmlGiven].filter((path): path is string => path !== null), replace));
-  // Start the browser now: it launches while the statistics are computed.
-  const printerPromise = findBrowser({ explicit: options.browser, env: context.env })
-    .then((browser) => PdfPrinter.launch(browser))
-    .then(async (printer) => {
-      try {
-        await printer.warmUp();
-      } catch (error) {
-        await printer.close();
-        throw error;
-      }
-      return printer;
-    });
-  printerPromise.catch(() => undefined); // observed below; never an unhandled rejection
+  if (options.outDir !== undefined && outGiven !== null) throw new UsageError("--out and --out-dir cannot be given together: --out names the PDF itself");
+  // Start the browser now (unless a batch shares one): it launches while the modules load and the statistics are computed.
+  const launched =
+    context.printer !== undefined
+      ? null
+      : findBrowser({ explicit: options.browser, env: context.env })
+          .then(async (browser) => (await import("../briefing/printPdf.js")).PdfPrinter.launch(browser))
+          .then(async (printer) => {
+            try {
+              await printer.warmUp();
+            } catch (error) {
+              await printer.close();
+              throw error;
+            }
+            return printer;
+          });
+  launched?.catch(() => undefined); // observed below; never an unhandled rejection
+  const printerPromise: Promise<HtmlPrinter> = launched ?? Promise.resolve(context.printer as HtmlPrinter);
   try {
+    const { loadWorkspace, runCalibration, buildOutlook, toOutlookJson, buildBriefingView, embeddedFontCss, renderBriefingHtml, progressReporter } = await briefModules();
     const workspace = await loadWorkspace(located(region, context.cwd));
     // Never overwrite the region's own inputs with a briefing (real paths: links resolved).
     const inputs = await Promise.all(workspace.files.map(async (file) => ({ file, real: await realTarget(resolve(workspace.root, file.path)) })));
@@ -222,7 +226,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     }
     const request = resolveOutlookRequest(workspace, options, context.today);
     const shownRegion = workspace.shownRoot ?? located(region, context.cwd);
-    const pdfTarget = outGiven ?? located(defaultBriefingName(basename(workspace.root), request.season, request.issued), context.cwd);
+    const pdfTarget = outGiven ?? located(join(options.outDir ?? "", defaultBriefingName(basename(workspace.root), request.season, request.issued)), context.cwd);
     const keptTarget = keep ? keptOutlookPath(shownRegion, request.season, request.issued) : null;
     const issuedFolder = join(workspace.root, "issued");
     const issuedFolderExists = await stat(issuedFolder).then(
@@ -258,7 +262,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper, madeAt, review, sinceLast });
     const html = renderBriefingHtml(view);
     await outputChecked(() => checkOutputTargets(targets, replace));
-    let printer: PdfPrinter;
+    let printer: HtmlPrinter;
     try {
       printer = await printerPromise;
     } catch (error) {
@@ -292,9 +296,10 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       keptPath: keptTarget === null ? null : resolve(keptTarget),
       pages: pdfPageCount(printed.pdf),
       notes: outlook.warnings.map((warning) => warning.message),
+      outlook: toOutlookJson(outlook),
     };
   } finally {
-    await printerPromise.then((printer) => printer.close()).catch(() => undefined);
+    await launched?.then((printer) => printer.close()).catch(() => undefined);
   }
 }
 
@@ -311,16 +316,22 @@ export function briefCommand(): Command {
   return addOutlookOptions(
     new Command("brief")
       .description("write the dated PDF briefing: odds, phases, skill, charts, methods and cautions")
-      .argument("<region>", "region folder (holds region.json)"),
+      .argument("<regions...>", "region folder(s) (each holds region.json); several share one browser and get an overview"),
   )
-    .option("--out <file>", "PDF to write, ending in .pdf (default: briefing-<region>-<season>-<issue date>.pdf here)")
+    .option("--out <file>", "PDF to write, ending in .pdf (default: briefing-<region>-<season>-<issue date>.pdf here); one region only")
+    .option("--out-dir <folder>", "folder for the PDFs (default names) and, with several regions, the overview (default: here)")
     .option("--html <file>", "also write the briefing as one self-contained HTML file")
     .option("--paper <size>", "a4 or letter", "a4")
     .option("--browser <path>", "Chrome or Chromium to print with (default: FIREPHASE_BROWSER, a system browser, then the bundled one)")
     .option("--force", "replace an existing PDF, HTML or kept outlook of the same name")
     .option("--no-keep", "do not keep this outlook in <region>/issued/ (kept outlooks are what firephase review scores)")
-    .action(async (region: string, options: BriefOptions) => {
+    .action(async (regions: readonly string[], options: BriefOptions) => {
       try {
+        if (regions.length > 1) {
+          await (await import("./briefBatch.js")).briefBatchAction(regions, options);
+          return;
+        }
+        const region = regions[0] as string;
         const result = await runBrief(region, options, { cwd: process.cwd(), today: new Date(), env: process.env });
         for (const note of result.notes) writeErr(`note: ${note}\n`);
         writeOut(`${result.pdfPath}\n`);

@@ -1,0 +1,350 @@
+/**
+ * The overview of a batch of briefings: one row per region with its headline odds of a
+ * high-fire year and their 95% interval, the average year (base rate), the hindcast's skill
+ * verdict and the basis of the odds, sorted by the odds (highest first). It is written as a CSV
+ * (for a spreadsheet) and as a one-page HTML document printed to PDF beside the briefings, with
+ * the cautions of SAFETY.md. The numbers are read from each region's outlook JSON, the same
+ * object `firephase outlook --json` prints, so the overview cannot disagree with the briefings.
+ */
+import { formatPercent, formatPercentRange } from "../outlook/describeChance.js";
+import { BAND_TEXT } from "./buildBriefingView.js";
+import { paletteCss } from "./charts/palette.js";
+import { escapeHtml } from "./escapeHtml.js";
+
+/** An estimate with its 95% interval; null where it cannot be computed. */
+export interface OverviewChance {
+  readonly estimate: number | null;
+  readonly lower: number | null;
+  readonly upper: number | null;
+}
+
+/** One region of the overview. */
+export interface OverviewRow {
+  /** The region's name (region.json `name`), or its folder when it failed before loading. */
+  readonly region: string;
+  /** The region folder as given on the command line. */
+  readonly folder: string;
+  readonly status: "briefed" | "failed";
+  readonly season: number | null;
+  readonly issued: string | null;
+  /** Chance of a high-fire year this season (`fireYear` of the outlook JSON). */
+  readonly chance: OverviewChance;
+  /** Chance in an average year (`baseRate`). */
+  readonly baseRate: OverviewChance;
+  /** Whether the hindcast shows skill (`hindcast.hasSkill`), null when unknown. */
+  readonly hasSkill: boolean | null;
+  /** The hindcast's verdict sentence (`hindcast.verdict`). */
+  readonly verdict: string;
+  /** Which past years the odds are read from (`fireYear.basis`). */
+  readonly basis: string;
+  /** The briefing PDF written, or null. */
+  readonly pdf: string | null;
+  /** For a failed region: how many problems it had, and the first of them. */
+  readonly problem: string | null;
+}
+
+function asRecord(value: unknown): Record<string, unknown> {
+  return typeof value === "object" && value !== null ? (value as Record<string, unknown>) : {};
+}
+
+function finiteOrNull(value: unknown): number | null {
+  return typeof value === "number" && Number.isFinite(value) ? value : null;
+}
+
+function chanceOf(value: unknown): OverviewChance {
+  const record = asRecord(value);
+  return { estimate: finiteOrNull(record["estimate"]), lower: finiteOrNull(record["lower"]), upper: finiteOrNull(record["upper"]) };
+}
+
+/**
+ * The overview row of a briefed region, read from its outlook JSON (schema firephase.outlook/1).
+ *
+ * @param outlookJson - the object `firephase outlook --json` prints for the region.
+ * @param folder - the region folder as given.
+ * @param pdf - the briefing PDF written for it.
+ * @returns the row; a number the JSON lacks is null.
+ * @throws never.
+ * @example
+ * overviewRowFromOutlook({ region: { name: "North unit" }, fireYear: { estimate: 0.3, lower: 0.2, upper: 0.4, basis: "…" }, … }, "north", "/out/briefing-north-2027-2027-03-10.pdf").chance.estimate; // => 0.3
+ */
+export function overviewRowFromOutlook(outlookJson: unknown, folder: string, pdf: string | null): OverviewRow {
+  const outlook = asRecord(outlookJson);
+  const fireYear = asRecord(outlook["fireYear"]);
+  const hindcast = asRecord(outlook["hindcast"]);
+  const name = asRecord(outlook["region"])["name"];
+  return {
+    region: typeof name === "string" ? name : folder,
+    folder,
+    status: "briefed",
+    season: finiteOrNull(outlook["season"]),
+    issued: typeof outlook["issued"] === "string" ? outlook["issued"] : null,
+    chance: chanceOf(fireYear),
+    baseRate: chanceOf(outlook["baseRate"]),
+    hasSkill: typeof hindcast["hasSkill"] === "boolean" ? hindcast["hasSkill"] : null,
+    verdict: typeof hindcast["verdict"] === "string" ? hindcast["verdict"] : "",
+    basis: typeof fireYear["basis"] === "string" ? fireYear["basis"] : "",
+    pdf,
+    problem: null,
+  };
+}
+
+/**
+ * The overview row of a region that could not be briefed.
+ *
+ * @param folder - the region folder as given.
+ * @param problems - its problems as printed (`file:line: message` lines), at least one.
+ * @returns a row with no numbers and the first problem.
+ * @throws never.
+ * @example
+ * failedOverviewRow("south", ["south/region.json:3: name is missing"]).problem; // => "south/region.json:3: name is missing"
+ */
+export function failedOverviewRow(folder: string, problems: readonly string[]): OverviewRow {
+  const none: OverviewChance = { estimate: null, lower: null, upper: null };
+  const first = problems[0] ?? "failed";
+  return {
+    region: folder,
+    folder,
+    status: "failed",
+    season: null,
+    issued: null,
+    chance: none,
+    baseRate: none,
+    hasSkill: null,
+    verdict: "",
+    basis: "",
+    pdf: null,
+    problem: problems.length > 1 ? `${first} (and ${problems.length - 1} more)` : first,
+  };
+}
+
+/**
+ * Rows in overview order: briefed regions by their odds of a high-fire year, highest first
+ * (ties and missing odds: by the upper end of the interval, then by name; a region without odds
+ * after those with odds), then the failed regions in the order given.
+ *
+ * @param rows - the rows in any order.
+ * @returns a new sorted array.
+ * @throws never.
+ * @example
+ * sortOverviewRows([a20, b35, failed]).map((row) => row.region); // => ["b", "a", "failed"]
+ */
+export function sortOverviewRows(rows: readonly OverviewRow[]): OverviewRow[] {
+  const briefed = rows.filter((row) => row.status === "briefed");
+  const failed = rows.filter((row) => row.status === "failed");
+  const key = (value: number | null): number => (value === null ? -1 : value);
+  briefed.sort(
+    (a, b) =>
+      key(b.chance.estimate) - key(a.chance.estimate) ||
+      key(b.chance.upper) - key(a.chance.upper) ||
+      (a.region < b.region ? -1 : a.region > b.region ? 1 : 0),
+  );
+  return [...briefed, ...failed];
+}
+
+/** CSV columns of the overview, in order. */
+export const OVERVIEW_CSV_COLUMNS: readonly string[] = Object.freeze([
+  "rank",
+  "region",
+  "folder",
+  "status",
+  "season",
+  "issued",
+  "chance",
+  "chance_lower",
+  "chance_upper",
+  "base_rate",
+  "base_rate_lower",
+  "base_rate_upper",
+  "has_skill",
+  "skill_verdict",
+  "basis",
+  "pdf",
+  "problem",
+]);
+
+/**
+ * One CSV cell (RFC 4180): quoted when it holds a comma, quote or line break; text that a
+ * spreadsheet would run as a formula (starting with =, +, -, @, tab or carriage return) is
+ * prefixed with an apostrophe.
+ */
+function csvCell(value: string | number | boolean | null): string {
+  if (value === null) return "";
+  if (typeof value === "number") return Number.isFinite(value) ? String(value) : "";
+  if (typeof value === "boolean") return value ? "yes" : "no";
+  const safe = /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
+  return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
+}
+
+/**
+ * The overview as CSV text: a header of {@link OVERVIEW_CSV_COLUMNS}, then one line per region in
+ * {@link sortOverviewRows} order. Probabilities are written as the outlook JSON holds them
+ * (shares 0–1, full precision); an empty cell is a value that cannot be computed or a failed region.
+ *
+ * @param rows - the rows (sorted here).
+ * @returns CSV text with LF line ends, ending in a line end.
+ * @throws never.
+ * @example
+ * overviewCsv([]).split("\n")[0]; // => "rank,region,folder,status,season,issued,chance,…"
+ * @see Shafranovich Y. (2005), RFC 4180: Common Format and MIME Type for Comma-Separated Values (CSV) Files.
+ */
+export function overviewCsv(rows: readonly OverviewRow[]): string {
+  const lines = [OVERVIEW_CSV_COLUMNS.join(",")];
+  sortOverviewRows(rows).forEach((row, position) => {
+    lines.push(
+      [
+        row.status === "briefed" ? position + 1 : null,
+        row.region,
+        row.folder,
+        row.status,
+        row.season,
+        row.issued,
+        row.chance.estimate,
+        row.chance.lower,
+        row.chance.upper,
+        row.baseRate.estimate,
+        row.baseRate.lower,
+        row.baseRate.upper,
+        row.hasSkill,
+        row.verdict,
+        row.basis,
+        row.pdf,
+        row.problem,
+      ]
+        .map(csvCell)
+        .join(","),
+    );
+  });
+  return `${lines.join("\n")}\n`;
+}
+
+/** Bullets of one `## heading` section of a Markdown text (continuation lines joined). */
+function sectionBullets(markdown: string, heading: string): string[] {
+  const lines = markdown.replace(/\r\n?/g, "\n").split("\n");
+  const start = lines.findIndex((line) => line.trim().toLowerCase() === `## ${heading}`.toLowerCase());
+  if (start < 0) return [];
+  const bullets: string[] = [];
+  for (const line of lines.slice(start + 1)) {
+    if (/^#{1,2}\s/.test(line)) break;
+    if (/^\s*[-*]\s+/.test(line)) bullets.push(line.replace(/^\s*[-*]\s+/, "").trim());
+    else if (line.trim() !== "" && bullets.length > 0) bullets[bullets.length - 1] = `${bullets[bullets.length - 1]} ${line.trim()}`;
+  }
+  return bullets;
+}
+
+/**
+ * The core cautions of SAFETY.md for the overview page: the first point of "What this outlook
+ * is" (a statistical, long-range outlook) and every point of "What it is not" (official outlooks
+ * come first; never for tactical or evacuation decisions), as plain sentences.
+ *
+ * @param safetyMarkdown - the text of SAFETY.md.
+ * @returns the sentences, in the file's order.
+ * @throws Error when SAFETY.md lacks either section: the overview is never made without them.
+ * @example
+ * coreCautions(safetyText)[1]; // => "Not a substitute for official agency seasonal outlooks, …"
+ */
+export function coreCautions(safetyMarkdown: string): string[] {
+  const is = sectionBullets(safetyMarkdown, "What this outlook is");
+  const isNot = sectionBullets(safetyMarkdown, "What it is not");
+  if (is.length === 0 || isNot.length === 0) {
+    throw new Error('SAFETY.md has no "What this outlook is" or "What it is not" points: the overview is never made without its cautions');
+  }
+  const plain = (text: string): string => text.replace(/\*\*|__|`/g, "");
+  return [plain(is[0] ?? ""), ...isNot.map(plain)];
+}
+
+/** What the overview page shows besides the rows. */
+export interface OverviewPageOptions {
+  /** Sentences from {@link coreCautions}. */
+  readonly cautions: readonly string[];
+  /** The moment the overview was made (ISO 8601), shown in its heading. */
+  readonly madeAt: string;
+  readonly toolVersion: string;
+  /** `@font-face` CSS (embedded fonts), or "" for the system sans-serif. */
+  readonly fontCss: string;
+}
+
+/** The verdict's first sentence, at most 110 characters (the CSV keeps the whole verdict). */
+function shortVerdict(row: OverviewRow): string {
+  const first = (/^[^.;]*[.;]?/.exec(row.verdict)?.[0] ?? row.verdict).trim();
+  return first.length > 110 ? `${first.slice(0, 109)}…` : first;
+}
+
+function chanceCell(chance: OverviewChance): string {
+  if (chance.estimate === null) return `<td class="num">${escapeHtml(formatPercent(null))}</td><td></td>`;
+  return `<td class="num strong">${escapeHtml(formatPercent(chance.estimate))}</td><td class="num muted">${escapeHtml(formatPercentRange(chance.lower, chance.upper))}</td>`;
+}
+
+/**
+ * The overview as one self-contained HTML page (no script, no external resource): a header band
+ * saying it is not an official forecast, a table of every region in {@link sortOverviewRows}
+ * order, the regions that could not be briefed, and the cautions. Every text is escaped.
+ *
+ * @param rows - the rows (sorted here).
+ * @param options - cautions, date, version, fonts.
+ * @returns a complete HTML document for {@link PdfPrinter.print}.
+ * @throws never.
+ * @example
+ * overviewHtml(rows, { cautions, madeAt: "2027-03-10T08:00:00Z", toolVersion: "0.1.0", fontCss: "" }).startsWith("<!DOCTYPE html>"); // => true
+ */
+export function overviewHtml(rows: readonly OverviewRow[], options: OverviewPageOptions): string {
+  const sorted = sortOverviewRows(rows);
+  const briefed = sorted.filter((row) => row.status === "briefed");
+  const failed = sorted.filter((row) => row.status === "failed");
+  const seasons = [...new Set(briefed.map((row) => row.season).filter((season): season is number => season !== null))];
+  const dates = [...new Set(briefed.map((row) => row.issued).filter((issued): issued is string => issued !== null))];
+  const subtitle =
+    `${briefed.length} region${briefed.length === 1 ? "" : "s"} briefed` +
+    (failed.length > 0 ? `, ${failed.length} not briefed` : "") +
+    (seasons.length === 1 ? ` · ${seasons[0]} fire season` : seasons.length > 1 ? ` · seasons ${seasons.join(", ")}` : "") +
+    (dates.length === 1 ? ` · issued ${dates[0]}` : dates.length > 1 ? ` · issued ${dates.join(", ")}` : "");
+  const body = briefed
+    .map(
+      (row, position) =>
+        `<tr><td class="num">${position + 1}</td><td><div class="strong">${escapeHtml(row.region)}</div><div class="muted small">${escapeHtml(row.folder)}</div></td>` +
+        `${chanceCell(row.chance)}${chanceCell(row.baseRate)}` +
+        `<td class="small">${escapeHtml(shortVerdict(row))}</td>` +
+        `<td class="small">${escapeHtml(row.basis)}</td></tr>`,
+    )
+    .join("\n");
+  const failedList =
+    failed.length === 0
+      ? ""
+      : `<h2>Not briefed</h2><ul class="small">${failed.map((row) => `<li><span class="strong">${escapeHtml(row.folder)}</span>: ${escapeHtml(row.problem ?? "failed")}</li>`).join("")}</ul>`;
+  return `<!DOCTYPE html>
+<html lang="en"><head><meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; font-src data:; img-src data:">
+<title>Overview of the briefings</title>
+<style>
+${options.fontCss}
+${paletteCss()}
+@page { size: auto; }
+body { font-family: 'Source Sans 3', sans-serif; color: var(--fp-ink); font-size: 8.5pt; margin: 0; }
+.band { background: var(--fp-band); color: var(--fp-paper); padding: 4pt 8pt; font-size: 8.5pt; font-weight: 600; }
+h1 { color: var(--fp-heading); font-size: 16pt; margin: 10pt 0 2pt; }
+h2 { color: var(--fp-heading); font-size: 11pt; margin: 10pt 0 4pt; }
+.sub { color: var(--fp-inkMuted); margin: 0 0 8pt; }
+table { border-collapse: collapse; width: 100%; }
+th { text-align: left; font-weight: 600; border-bottom: 1.2pt solid var(--fp-rule); padding: 3pt 4pt; font-size: 8.5pt; color: var(--fp-heading); }
+td { border-bottom: 0.5pt solid var(--fp-grid); padding: 2pt 4pt; vertical-align: top; }
+tr { break-inside: avoid; }
+.num { text-align: right; white-space: nowrap; }
+.strong { font-weight: 600; }
+.muted { color: var(--fp-inkMuted); }
+.small { font-size: 7.5pt; }
+.cautions { background: var(--fp-panel); border-left: 3pt solid var(--fp-band); padding: 4pt 8pt; margin-top: 10pt; }
+.cautions li { margin: 2pt 0; }
+</style></head>
+<body>
+<div class="band">${escapeHtml(BAND_TEXT)}</div>
+<h1>Overview of the briefings: odds of a high-fire year</h1>
+<p class="sub">${escapeHtml(subtitle)} · made ${escapeHtml(options.madeAt)} with firephase ${escapeHtml(options.toolVersion)}. Sorted by this season's odds, highest first; each region's briefing explains its odds.</p>
+<table>
+<thead><tr><th class="num">#</th><th>Region</th><th class="num">This season</th><th class="num">95% interval</th><th class="num">Average year</th><th class="num">95% interval</th><th>Hindcast skill</th><th>Odds read from</th></tr></thead>
+<tbody>
+${body}
+</tbody></table>
+${failedList}
+<div class="cautions"><h2>Read with care</h2><ul>${options.cautions.map((text) => `<li>${escapeHtml(text)}</li>`).join("")}</ul></div>
+</body></html>
+`;
+}
