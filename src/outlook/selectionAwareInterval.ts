@@ -1,8 +1,8 @@
 import { classifyPhase, phaseDefinition } from "../climate/phaseDefinition.js";
 import type { IndexValues, TrainingSet } from "../calibrate/buildTrainingSet.js";
-import { curveForecast } from "../calibrate/curveForecast.js";
 import { forecastCell } from "../calibrate/forecastCell.js";
 import { rankIndicesByAssociation } from "../calibrate/rankIndicesByAssociation.js";
+import { curveScratch, readFastResponseCurve, type CurveScratch } from "../hindcast/fastResponseCurve.js";
 import type { ActivityCategories, ActivityCategory } from "../record/types.js";
 import type { PhaseDefinition } from "../climate/types.js";
 import { createRandom } from "../stats/createRandom.js";
@@ -83,9 +83,10 @@ export function selectionAwareInterval(input: SelectionIntervalInput): Selection
   const random = createRandom(input.seed);
   const names = input.indexSettings.map((settings) => settings.name);
   const estimates: number[] = [];
+  const scratch = new Map<string, CurveScratch>();
   for (let resample = 0; resample < input.resamples; resample += 1) {
     const positions = movingBlockBootstrapIndices(n, blockYears, random);
-    estimates.push(oddsOnResample(input, positions, names));
+    estimates.push(oddsOnResample(input, positions, names, scratch));
   }
   estimates.sort((a, b) => a - b);
   const tail = (1 - level) / 2;
@@ -127,7 +128,12 @@ export function selectionNote(
   return null;
 }
 
-function oddsOnResample(input: SelectionIntervalInput, positions: readonly number[], names: readonly string[]): number {
+function oddsOnResample(
+  input: SelectionIntervalInput,
+  positions: readonly number[],
+  names: readonly string[],
+  scratch: Map<string, CurveScratch>,
+): number {
   // Each drawn year gets its own number (its position in the resample), so a year drawn twice counts twice.
   const pseudoYears = positions.map((_, i) => i);
   const original = positions.map((position) => input.years[position] as number);
@@ -179,6 +185,23 @@ function oddsOnResample(input: SelectionIntervalInput, positions: readonly numbe
   const cell = forecastCell(training, phases, ranking, input.jointMinYears, input.jointMaxQ);
   const phaseOdds = cell.years.length === 0 ? fireYears.length / pseudoYears.length : cell.fireYears / cell.years.length;
   if (input.response === "phase") return phaseOdds;
-  const curve = curveForecast(training, indexValues, cell, input.current);
-  return curve.forecast === null ? phaseOdds : curve.forecast.reading.estimate;
+  // The curve rule (curveForecast): the cell's first index, its curve fitted over the resample's years with a
+  // value, read at this season's value. readFastResponseCurve reproduces fitResponseCurve + readResponseCurve
+  // (the hindcast's tests check it against curveForecast) without allocating per fit.
+  const index = cell.basis === "climatology" ? undefined : cell.indices[0];
+  const value = index === undefined ? undefined : input.current.get(index);
+  const values = index === undefined ? undefined : indexValues.get(index);
+  if (index === undefined || value === undefined || values === undefined) return phaseOdds;
+  const buffers = scratch.get(index) ?? curveScratch(pseudoYears.length);
+  scratch.set(index, buffers);
+  let m = 0;
+  for (const year of pseudoYears) {
+    const x = values.get(year);
+    if (x === undefined) continue;
+    buffers.x[m] = x;
+    buffers.y[m] = isFireYear.has(year) ? 1 : 0;
+    m += 1;
+  }
+  const estimate = readFastResponseCurve(buffers, m, value);
+  return Number.isNaN(estimate) ? phaseOdds : estimate;
 }

@@ -1,11 +1,15 @@
 import { describe, expect, it } from "vitest";
+import jStat from "jstat";
 import { valuesByYear } from "../../src/calibrate/activityByYear.js";
 import { buildTrainingSet } from "../../src/calibrate/buildTrainingSet.js";
 import { forecastCell } from "../../src/calibrate/forecastCell.js";
 import { rankIndicesByAssociation } from "../../src/calibrate/rankIndicesByAssociation.js";
 import { runCalibration } from "../../src/calibrate/runCalibration.js";
 import { classifyPhase } from "../../src/climate/phaseDefinition.js";
+import { curveForecast } from "../../src/calibrate/curveForecast.js";
 import { buildOutlook } from "../../src/outlook/buildOutlook.js";
+import { createRandom } from "../../src/stats/createRandom.js";
+import { movingBlockBootstrapIndices } from "../../src/stats/movingBlockBootstrap.js";
 import { selectionAwareInterval, selectionNote, type SelectionIntervalInput } from "../../src/outlook/selectionAwareInterval.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
 import { wilsonInterval } from "../../src/stats/wilsonInterval.js";
@@ -93,6 +97,50 @@ describe("selectionAwareInterval — bootstrap of the whole rule", () => {
     expect(result.interval).toBeNull();
     expect(result.reason).toMatch(/only 9 calibration years/);
   });
+});
+
+/**
+ * The same bootstrap rebuilt from the outlook's own functions, one resample at a time: buildTrainingSet with the
+ * event fixed from the whole period, rankIndicesByAssociation, forecastCell and curveForecast.
+ */
+function slowSelectionInterval(input: SelectionIntervalInput, calibrationThreshold: number | null, cuts: { lowerCut: number; upperCut: number }): [number, number] {
+  const random = createRandom(input.seed);
+  const n = input.years.length;
+  const estimates: number[] = [];
+  for (let resample = 0; resample < input.resamples; resample += 1) {
+    const positions = movingBlockBootstrapIndices(n, input.blockYears, random);
+    const years = positions.map((_, i) => i);
+    const activity = new Map(positions.map((position, i) => [i, input.activity.get(input.years[position]!)!]));
+    const indexValues = new Map(
+      [...input.indexValues].map(([name, values]) => [
+        name,
+        new Map(positions.flatMap((position, i) => (values.has(input.years[position]!) ? [[i, values.get(input.years[position]!)!] as const] : []))),
+      ]),
+    );
+    const training = buildTrainingSet({ years, activity, indexValues, indexSettings: input.indexSettings, top: 0.1, measure: "fraction", event: { threshold: calibrationThreshold, ...cuts } });
+    const phases = new Map([...input.current].map(([name, value]) => [name, classifyPhase(value, training.definitions.get(name)!.cuts)]));
+    const ranking = rankIndicesByAssociation(training, input.indexSettings.map((settings) => settings.name));
+    const cell = forecastCell(training, phases, ranking, input.jointMinYears, input.jointMaxQ);
+    const phaseOdds = cell.fireYears / cell.years.length;
+    const curve = input.response === "curve" ? curveForecast(training, indexValues, cell, input.current) : null;
+    estimates.push(curve?.forecast ? curve.forecast.reading.estimate : phaseOdds);
+  }
+  estimates.sort((a, b) => a - b);
+  return [jStat.percentile(estimates, 0.025), jStat.percentile(estimates, 0.975)];
+}
+
+describe("selectionAwareInterval against the outlook's own functions rebuilt resample by resample", () => {
+  for (const response of ["phase", "curve"] as const) {
+    it(`response "${response}": the same percentile interval as buildTrainingSet + rankIndicesByAssociation + forecastCell${response === "curve" ? " + curveForecast" : ""} on each resample`, () => {
+      const workspace = syntheticWorkspace({ effect: 1.4, seed: 21 });
+      const input = { ...inputOf(workspace, { A: 1.3, B: -0.2 }, 60, 5), response };
+      const calibration = runCalibration(workspace);
+      const fast = selectionAwareInterval(input).interval!;
+      const [lower, upper] = slowSelectionInterval(input, calibration.fireYears.threshold, { lowerCut: calibration.categories.lowerCut, upperCut: calibration.categories.upperCut });
+      expect(fast.lower).toBeCloseTo(lower, 9);
+      expect(fast.upper).toBeCloseTo(upper, 9);
+    });
+  }
 });
 
 describe("selectionNote — when the two intervals differ much (width ratio above 1.5)", () => {
