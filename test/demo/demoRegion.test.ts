@@ -1,7 +1,7 @@
 import { spawnSync } from "node:child_process";
 import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
+import { join, resolve, sep } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runInProcess } from "../cli/helpers.js";
 
@@ -70,7 +70,9 @@ describe("demo-region/generate.mjs (seed 20270310)", () => {
     const run = spawnSync(process.execPath, [GENERATOR, "--out", out], { encoding: "utf8" });
     expect(run.status).toBe(0);
     const names = generatedFiles(out);
-    expect(names).toEqual(generatedFiles(DEMO));
+    // `brief demo-region` may keep its own outlook in issued/; every other file is the generator's.
+    const notKept = (name: string) => !name.startsWith(`issued${sep}`);
+    expect(generatedFiles(DEMO).filter(notKept)).toEqual(names.filter(notKept));
     for (const name of names) expect(readFileSync(join(out, name)).equals(readFileSync(join(DEMO, name))), name).toBe(true);
   });
 
@@ -184,7 +186,8 @@ describe("the demo's modern record and kept outlooks", () => {
 
   it("kept outlooks are firephase.outlook/1 objects named <season>-<issue date>.json, with sound intervals", () => {
     const folder = join(DEMO, "issued");
-    const names = readdirSync(folder).sort();
+    // The generator's eight (seasons 2019–2026); a `brief` of the demo may have kept a later one.
+    const names = readdirSync(folder).filter((name) => /^20(19|2[0-6])-/.test(name)).sort();
     expect(names.length).toBe(8);
     for (const name of names) {
       const kept = JSON.parse(readFileSync(join(folder, name), "utf8")) as {
