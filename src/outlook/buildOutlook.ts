@@ -263,7 +263,6 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   // Selection-aware interval: the whole rule bootstrapped in blocks of years (event definition fixed).
   const selection = selectionAwareInterval({
     years: calibration.years,
-    activity: calibration.activity,
     indexValues,
     indexSettings: settings.indices,
     isFireYear: training.isFireYear,

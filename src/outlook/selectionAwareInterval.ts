@@ -20,7 +20,6 @@ export const WIDTH_RATIO_MUCH = 1.5;
 export interface SelectionIntervalInput {
   /** Calibration years, ascending. */
   readonly years: readonly number[];
-  readonly activity: ReadonlyMap<number, number>;
   readonly indexValues: IndexValues;
   readonly indexSettings: readonly IndexSettings[];
   /** High-fire years and activity categories of the whole calibration period (kept fixed in every resample). */
@@ -137,11 +136,9 @@ function oddsOnResample(
   // Each drawn year gets its own number (its position in the resample), so a year drawn twice counts twice.
   const pseudoYears = positions.map((_, i) => i);
   const original = positions.map((position) => input.years[position] as number);
-  const activity = new Map<number, number>();
   const isFireYear = new Set<number>();
   const categories = new Map<number, ActivityCategory>();
   original.forEach((year, i) => {
-    activity.set(i, input.activity.get(year) as number);
     if (input.isFireYear.has(year)) isFireYear.add(i);
     const category = input.categories.byYear.get(year);
     if (category !== undefined) categories.set(i, category);

@@ -29,7 +29,6 @@ function inputOf(workspace: Workspace, current: Record<string, number>, resample
   });
   return {
     years: calibration.years,
-    activity: calibration.activity,
     indexValues,
     indexSettings: workspace.settings.indices,
     isFireYear: training.isFireYear,
@@ -47,8 +46,8 @@ function inputOf(workspace: Workspace, current: Record<string, number>, resample
 }
 
 /** The rule's own odds on all calibration years (no resampling), for the Wilson interval beside it. */
-function plainOdds(input: SelectionIntervalInput): { k: number; n: number } {
-  const training = buildTrainingSet({ years: input.years, activity: input.activity, indexValues: input.indexValues, indexSettings: input.indexSettings, top: 0.1, measure: "fraction" });
+function plainOdds(input: SelectionIntervalInput, activity: ReadonlyMap<number, number>): { k: number; n: number } {
+  const training = buildTrainingSet({ years: input.years, activity, indexValues: input.indexValues, indexSettings: input.indexSettings, top: 0.1, measure: "fraction" });
   const phases = new Map([...input.current].map(([name, value]) => [name, classifyPhase(value, training.definitions.get(name)!.cuts)]));
   const ranking = rankIndicesByAssociation(training, input.indexSettings.map((settings) => settings.name));
   const cell = forecastCell(training, phases, ranking, 10, 0.05);
@@ -74,7 +73,7 @@ describe("selectionAwareInterval — bootstrap of the whole rule", () => {
       const workspace = syntheticWorkspace({ effect: 0, seed: 100 + seed });
       const input = inputOf(workspace, { A: 1.1, B: -0.8 }, 199, seed);
       const result = selectionAwareInterval(input);
-      const { k, n } = plainOdds(input);
+      const { k, n } = plainOdds(input, runCalibration(workspace).activity);
       const wilson = wilsonInterval(k, n);
       if (result.interval!.upper - result.interval!.lower >= wilson.upper - wilson.lower) wider += 1;
     }
@@ -85,7 +84,7 @@ describe("selectionAwareInterval — bootstrap of the whole rule", () => {
     // A one-block region (block = all years) reproduces the calibration exactly: the interval collapses onto the rule's own odds.
     const workspace = syntheticWorkspace({ effect: 1.2, seed: 4 });
     const input = { ...inputOf(workspace, { A: 1.2, B: 0.3 }, 20, 3), blockYears: 10_000 };
-    const { k, n } = plainOdds(input);
+    const { k, n } = plainOdds(input, runCalibration(workspace).activity);
     const result = selectionAwareInterval(input);
     expect(result.interval!.lower).toBeCloseTo(k / n, 12);
     expect(result.interval!.upper).toBeCloseTo(k / n, 12);
@@ -103,14 +102,14 @@ describe("selectionAwareInterval — bootstrap of the whole rule", () => {
  * The same bootstrap rebuilt from the outlook's own functions, one resample at a time: buildTrainingSet with the
  * event fixed from the whole period, rankIndicesByAssociation, forecastCell and curveForecast.
  */
-function slowSelectionInterval(input: SelectionIntervalInput, calibrationThreshold: number | null, cuts: { lowerCut: number; upperCut: number }): [number, number] {
+function slowSelectionInterval(input: SelectionIntervalInput, calibrationActivity: ReadonlyMap<number, number>, calibrationThreshold: number | null, cuts: { lowerCut: number; upperCut: number }): [number, number] {
   const random = createRandom(input.seed);
   const n = input.years.length;
   const estimates: number[] = [];
   for (let resample = 0; resample < input.resamples; resample += 1) {
     const positions = movingBlockBootstrapIndices(n, input.blockYears, random);
     const years = positions.map((_, i) => i);
-    const activity = new Map(positions.map((position, i) => [i, input.activity.get(input.years[position]!)!]));
+    const activity = new Map(positions.map((position, i) => [i, calibrationActivity.get(input.years[position]!)!]));
     const indexValues = new Map(
       [...input.indexValues].map(([name, values]) => [
         name,
@@ -136,7 +135,7 @@ describe("selectionAwareInterval against the outlook's own functions rebuilt res
       const input = { ...inputOf(workspace, { A: 1.3, B: -0.2 }, 60, 5), response };
       const calibration = runCalibration(workspace);
       const fast = selectionAwareInterval(input).interval!;
-      const [lower, upper] = slowSelectionInterval(input, calibration.fireYears.threshold, { lowerCut: calibration.categories.lowerCut, upperCut: calibration.categories.upperCut });
+      const [lower, upper] = slowSelectionInterval(input, calibration.activity, calibration.fireYears.threshold, { lowerCut: calibration.categories.lowerCut, upperCut: calibration.categories.upperCut });
       expect(fast.lower).toBeCloseTo(lower, 9);
       expect(fast.upper).toBeCloseTo(upper, 9);
     });
