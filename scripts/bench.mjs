@@ -10,6 +10,8 @@
 //      2 × 2 = 4× the site-years,
 //   3. the whole `brief` of demo-region (browser launch, computation, HTML, PDF, atomic write),
 //   4. the floor: the same browser launched, printing a trivial page to PDF and closed,
+//   5. the hindcast alone on the demo (one pass; its permutation test with 999 shuffles; its bootstrap
+//      intervals and CORP band; the curve rule with 199 shuffles) and on 3,000 invented years,
 // and prints brief ÷ floor (target: at most 1.5). Each figure is the median of several runs
 // after one warm-up. Figures belong in the README's Performance section, never in tests.
 import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
@@ -30,6 +32,9 @@ const { buildOutlook } = await import(dist("outlook/buildOutlook.js"));
 const { runBrief } = await import(dist("cli/brief.js"));
 const { findBrowser } = await import(dist("briefing/findBrowser.js"));
 const { PdfPrinter } = await import(dist("briefing/printPdf.js"));
+const { runHindcast } = await import(dist("hindcast/runHindcast.js"));
+const { valuesByYear } = await import(dist("calibrate/activityByYear.js"));
+const { createRandom } = await import(dist("stats/createRandom.js"));
 
 const REPEATS = Number(process.env.BENCH_REPEATS ?? 5);
 const demo = join(root, "demo-region");
@@ -63,6 +68,59 @@ async function compute(region) {
     issued: outlook.issued ?? "2027-03-10",
     season: outlook.season ?? 2027,
   });
+}
+
+/** The outlook's hindcast input for a region (every index used), as buildOutlook builds it. */
+async function hindcastInputOf(region) {
+  const workspace = await loadWorkspace(region);
+  const calibration = runCalibration(workspace);
+  const { settings } = workspace;
+  return {
+    years: calibration.years,
+    activity: calibration.activity,
+    indexValues: new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)])),
+    indexSettings: settings.indices,
+    indices: settings.indices.map((index) => index.name),
+    top: settings.fireYears.top,
+    measure: settings.fireYears.measure,
+    exclusion: settings.methods.hindcastExclusion,
+    jointMinYears: settings.methods.jointMinYears,
+    jointMaxQ: settings.methods.jointMaxQ,
+    seed: settings.seed,
+    blockYears: settings.methods.blockYears,
+  };
+}
+
+/** An invented record of `years` years: 4 indices (2 fixed cuts, 2 terciles), a planted link to the first. */
+function inventedHindcastInput(years) {
+  const random = createRandom(5);
+  const normal = () => Math.sqrt(-2 * Math.log(Math.max(random.nextFloat(), 1e-12))) * Math.cos(2 * Math.PI * random.nextFloat());
+  const names = ["A", "B", "C", "D"];
+  const values = new Map(names.map((name) => [name, new Map()]));
+  const activity = new Map();
+  const list = [];
+  for (let year = 1; year <= years; year += 1) {
+    list.push(year);
+    for (const name of names) values.get(name).set(year, normal());
+    const high = random.nextFloat() < 1 / (1 + Math.exp(2.5 - 0.8 * values.get("A").get(year)));
+    let burned = 0;
+    for (let site = 0; site < 20; site += 1) if (random.nextFloat() < (high ? 0.6 : 0.03)) burned += 1;
+    activity.set(year, burned / 20);
+  }
+  const phases = (i) => (i % 2 === 0 ? { kind: "cuts", cuts: [-0.5, 0.5], labels: ["low", "mid", "high"] } : { kind: "terciles", labels: ["low", "middle", "high"] });
+  return {
+    years: list,
+    activity,
+    indexValues: values,
+    indexSettings: names.map((name, i) => ({ name, file: "indices.csv", column: name, phases: phases(i), months: null })),
+    indices: names,
+    top: 0.1,
+    measure: "fraction",
+    exclusion: 2,
+    jointMinYears: 10,
+    jointMaxQ: 0.05,
+    seed: 1,
+  };
 }
 
 // Split a CSV into header and rows (the demo files have no quoted fields).
@@ -117,6 +175,18 @@ try {
 
   const computeDemo = await timed("compute demo-region (load+calibrate+outlook)", REPEATS, () => compute(demo));
   const computeBig = await timed("compute 4× region", Math.max(1, Math.ceil(REPEATS / 2)), () => compute(bigFolder));
+  // Hindcast alone (its permutation test, intervals and curve rule), on the demo and on 3,000 invented years.
+  const demoHindcast = await hindcastInputOf(demo);
+  const lean = { permutations: 0, bootstrapResamples: 0, curveRule: false };
+  await timed("hindcast demo: one pass, no shuffles", REPEATS, () => runHindcast({ ...demoHindcast, ...lean }));
+  await timed("hindcast demo: permutation test, 999 shuffles", REPEATS, () => runHindcast({ ...demoHindcast, ...lean, permutations: 999 }));
+  await timed("hindcast demo: bootstrap intervals + CORP, 999", REPEATS, () => runHindcast({ ...demoHindcast, ...lean, bootstrapResamples: 999 }));
+  await timed("hindcast demo: curve rule + 199 shuffles", Math.max(1, Math.ceil(REPEATS / 2)), () =>
+    runHindcast({ ...demoHindcast, permutations: 199, curvePermutations: 199, bootstrapResamples: 0 }),
+  );
+  const longHindcast = inventedHindcastInput(3000);
+  await timed("hindcast 3,000 years: one pass, no shuffles", Math.max(1, Math.ceil(REPEATS / 2)), () => runHindcast({ ...longHindcast, ...lean }));
+  await timed("hindcast 3,000 years: permutation test, 999", 1, () => runHindcast({ ...longHindcast, ...lean, permutations: 999 }));
 
   const trivial = "<!DOCTYPE html><html><body><p>floor</p></body></html>";
   const floor = await timed("floor: launch browser, print trivial page, close", REPEATS, async () => {

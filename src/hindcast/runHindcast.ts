@@ -41,7 +41,10 @@ export interface HindcastInput {
   readonly bootstrapResamples?: number;
   /** The rule the outlook issues (methods.response; default "phase"); the issued rule gets the full permutation count. */
   readonly response?: "phase" | "curve";
-  /** Shuffles of the curve rule's permutation test when it is not the issued rule (default 199, at most `permutations`). */
+  /**
+   * Shuffles of the curve rule's permutation test when it is not the issued rule (default 199, at most
+   * `permutations`, and at most 199 × 300² / (years²): fewer than 99 affordable shuffles skip it with a reason).
+   */
   readonly curvePermutations?: number;
   /** Run the curve rule in the same folds (default true). */
   readonly curveRule?: boolean;
@@ -66,6 +69,14 @@ export const REFERENCE_RULE =
   "so the event being forecast does not move with the held-out year (the cross-validation degeneracy of Barnston & van den Dool 1993). " +
   "The reference forecast of the Brier and ranked probability skill scores is that climatology: the whole-period share of high-fire years and of each tercile. " +
   "Each fold relearns the phase cuts, the index ranking and its q gate, and the odds from its left-in years only.";
+
+/**
+ * Work bound of the curve rule's permutation test when the curve rule is not the issued rule: shuffles × folds ×
+ * years at most this (199 shuffles of a 300-year record), so a long record does not make every outlook slow.
+ */
+const CURVE_PERMUTATION_WORK = 199 * 300 * 300;
+/** Fewest shuffles worth running for the curve rule's p-value (resolution 0.01). */
+const CURVE_MIN_PERMUTATIONS = 99;
 
 /** Independent streams of the one region seed: shuffles, bootstrap, CORP band, and the curve rule's. */
 const STREAM = { permutation: 0, bootstrap: 1, corp: 2, curvePermutation: 3, curveBootstrap: 4, curveCorp: 5 } as const;
@@ -129,13 +140,22 @@ export function runHindcast(input: HindcastInput): Skill {
   const curve = curveRuleForecasts(design, event.fire, phase, curveBuffers);
   const curveYears = hindcastYears(design, event, phase, curve.probability, curve.read);
   const curveSkill = scoreHindcast(curveYears, input.exclusion, event, false);
-  const curveCount = input.response === "curve" ? permutations : Math.min(permutations, input.curvePermutations ?? HINDCAST_DEFAULTS.curvePermutations);
+  const issued = input.response === "curve";
+  const affordable = Math.floor(CURVE_PERMUTATION_WORK / Math.max(1, design.folds * design.years.length));
+  const curveCount = issued
+    ? permutations
+    : Math.min(permutations, input.curvePermutations ?? HINDCAST_DEFAULTS.curvePermutations, affordable);
   const curveTest =
     curveSkill.brierSkillScore === null
       ? { pValue: null, reason: "the Brier skill score could not be computed" }
       : input.indices.length === 0
         ? { pValue: null, reason: "no index value was given, so every forecast is the long-term average" }
-        : curveCount <= 0
+        : !issued && affordable < CURVE_MIN_PERMUTATIONS && permutations > 0
+          ? {
+              pValue: null,
+              reason: `not run for a record of ${design.years.length} years while the curve rule is not the issued rule (methods.response "curve" runs it): it refits a logistic curve in every fold of every shuffle`,
+            }
+          : curveCount <= 0
           ? { pValue: null, reason: "the permutation test was not run (0 shuffles)" }
           : permutationTest(design, event, curveCount, blockYears, streamOf(seed, STREAM.curvePermutation), (fire, category) => {
               const shuffledPhase = phaseRuleForecasts(design, fire, category, settings, scratch);

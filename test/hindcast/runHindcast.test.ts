@@ -188,6 +188,17 @@ describe("runHindcast(input)", () => {
   });
 });
 
+describe("runHindcast curve-rule permutation bound", () => {
+  it("a 700-year record skips the curve rule's permutation test with a reason unless the curve rule is the issued one", () => {
+    const input = { ...hindcastInput({ effect: 1.2, seed: 4, first: 1201, last: 1900 }), permutations: 99, bootstrapResamples: 0 };
+    const skill = runHindcast(input);
+    expect(skill.skillPValue).not.toBeNull();
+    expect(skill.curveRule?.skillPValue).toBeNull();
+    expect(skill.curveRule?.skillPValueReason).toMatch(/not run for a record of 700 years/);
+    expect(skill.curveRule?.hasSkill).toBe(false);
+  });
+});
+
 describe("runHindcast permutation p-value", () => {
   it("matches the exact p of a brute-force enumeration of all 4! = 24 block orders (12 years, blocks of 3)", () => {
     const years = Array.from({ length: 12 }, (_, i) => 1901 + i);
