@@ -5,6 +5,9 @@ import { buildOutlook } from "../../src/outlook/buildOutlook.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
 import { syntheticWorkspace, withCutsForA } from "../helpers/syntheticWorkspace.js";
 
+/** Outlook tests here check the odds, not the skill verdict: no permutation test, few bootstrap resamples. */
+const QUICK = { permutations: 0, bootstrapResamples: 199 } as const;
+
 describe("runCalibration(workspace)", () => {
   const workspace = syntheticWorkspace({ effect: 1.6, seed: 11 });
   const calibration = runCalibration(workspace);
@@ -61,7 +64,8 @@ describe("runCalibration(workspace)", () => {
 });
 
 describe("buildOutlook(workspace, calibration, request)", () => {
-  const workspace = syntheticWorkspace({ effect: 1.6, seed: 11, methods: { jointMinYears: 10 } });
+  // No permutation test and few resamples: these tests are about the odds, not the skill verdict.
+  const workspace = syntheticWorkspace({ effect: 1.6, seed: 11, methods: { jointMinYears: 10, ...QUICK } });
   const calibration = runCalibration(workspace);
 
   it("reads a high-A season from the high-A years and raises the odds above the base rate", () => {
@@ -106,7 +110,7 @@ describe("buildOutlook(workspace, calibration, request)", () => {
 
   it("falls back as the hindcast does when this season's phase has no past year", () => {
     // Cuts at ±5 leave the outer phases of index A empty in a standard-normal record.
-    const wide = withCutsForA(syntheticWorkspace({ effect: 1.6, seed: 11 }), [-5, 5], ["low", "mid", "high"]);
+    const wide = withCutsForA(syntheticWorkspace({ effect: 1.6, seed: 11, methods: QUICK }), [-5, 5], ["low", "mid", "high"]);
     const wideCalibration = runCalibration(wide);
     const alone = buildOutlook(wide, wideCalibration, { values: { A: 10 }, issued: "2027-03-10", season: 2027 });
     expect(alone.fireYear.estimate).toBeCloseTo(wideCalibration.baseRate.estimate as number, 12);
@@ -139,7 +143,7 @@ describe("buildOutlook(workspace, calibration, request)", () => {
 describe("buildOutlook when the strongest index's phase has no past year", () => {
   it("names the index actually used and why", () => {
     // A fourth phase of A beyond 5 is empty in a standard-normal record, while A keeps its measured link.
-    const wide = withCutsForA(syntheticWorkspace({ effect: 1.6, seed: 11 }), [-0.5, 0.5, 5], ["low", "mid", "high", "extreme"]);
+    const wide = withCutsForA(syntheticWorkspace({ effect: 1.6, seed: 11, methods: QUICK }), [-0.5, 0.5, 5], ["low", "mid", "high", "extreme"]);
     const outlook = buildOutlook(wide, runCalibration(wide), { values: { A: 10, B: 0.1 }, issued: "2027-03-10", season: 2027 });
     expect(outlook.fireYear.basisIndices).toEqual(["B"]);
     expect(outlook.fireYear.basis).toMatch(/the most strongly linked index with past years in its current phase; no past year shared this season's phase of A\)$/);
