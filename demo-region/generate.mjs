@@ -617,10 +617,11 @@ function keptOutlooks({ sites, events, pmi, enso, wsi, pmiSeason, ensoSeason, ws
     const fires = inPhase.filter((y) => y.fraction >= threshold && y.fraction > 0).length;
     const odds = wilson(fires, inPhase.length);
     const share = (test) => wilson(inPhase.filter(test).length, inPhase.length);
+    const span = `Dec ${season - 1}–Feb ${season}`;
     const current = [
-      { index: "PMI", value: pmiNow.value, label: pmiLabel, window: "Dec-Mar", provisional: true, months: pmiNow.months, source: "pmi-monthly.csv" },
-      { index: "ENSO", value: ensoNow.value, label: label(ensoNow.value, ensoCuts, ["cool", "neutral", "warm"]), window: "Dec-Feb", provisional: false, months: ensoNow.months, source: "climate-monthly.csv" },
-      { index: "WSI", value: wsiNow.value, label: label(wsiNow.value, wsiCuts, ["weak", "moderate", "strong"]), window: "Dec-Feb", provisional: false, months: wsiNow.months, source: "climate-monthly.csv" },
+      { index: "PMI", value: pmiNow.value, label: pmiLabel, window: "Dec-Mar", provisional: true, months: pmiNow.months, source: `pmi-monthly.csv, ${span} (provisional)` },
+      { index: "ENSO", value: ensoNow.value, label: label(ensoNow.value, ensoCuts, ["cool", "neutral", "warm"]), window: "Dec-Feb", provisional: false, months: ensoNow.months, source: `climate-monthly.csv, ${span}` },
+      { index: "WSI", value: wsiNow.value, label: label(wsiNow.value, wsiCuts, ["weak", "moderate", "strong"]), window: "Dec-Feb", provisional: false, months: wsiNow.months, source: `climate-monthly.csv, ${span}` },
     ];
     const phases = {};
     for (const c of current) phases[c.index] = c.label;
