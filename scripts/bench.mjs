@@ -1,6 +1,22 @@
 // firephase benchmark (plain Node on the built dist/): `npm run build && npm run bench`.
 //
-// In one run it times
+// Headline (what a user pays): whole processes started from the shell, in alternating pairs
+// (A B, B A, A B, …, so neither side always runs first on a warmed machine), each run a new process
+// (both sides cold: nothing is shared between runs but the operating system's file cache), timed
+// from spawn to exit, with the peak memory from `/usr/bin/time -v` where it exists:
+//   a. `node -e 0` against `firephase check demo-region` (target: check ≤ 2.5× node -e 0),
+//      and `firephase --version`;
+//   b. the browser floor — a plain script that starts the same bundled browser through
+//      puppeteer-core, prints a trivial page to PDF and closes — against `firephase brief
+//      demo-region` (target: brief ≤ 1.5× the floor);
+//   c. a batch: `firephase brief r01 … r20` on 20 regions generated from the demo into a temp
+//      folder (each a copy with its own seed and name, and every 20th fire event left out at its own
+//      offset, so no two are the same), against one `brief`: regions per minute and the marginal
+//      cost of a region, (batch − single) ÷ 19.
+// Each ratio is the median of the per-pair ratios. BENCH_PAIRS (default 7) sets the number of
+// pairs, BENCH_SECTIONS=cold,batch,detail which sections run (default all).
+//
+// Detail (in-process, after one warm-up, median of BENCH_REPEATS runs):
 //   1. the computation (load + calibrate + outlook with its leave-out hindcast) on demo-region,
 //   2. the same on a synthetic region four times larger, generated into a temp folder from the
 //      demo: every site is copied once (the copy 1° of latitude north, so no site pair is closer
@@ -14,7 +30,9 @@
 //      intervals and CORP band; the curve rule with 199 shuffles) and on 3,000 invented years,
 // and prints brief ÷ floor (target: at most 1.5). Each figure is the median of several runs
 // after one warm-up. Figures belong in the README's Performance section, never in tests.
-import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
+import { spawnSync } from "node:child_process";
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
+import { createRequire } from "node:module";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { performance } from "node:perf_hooks";
@@ -31,12 +49,16 @@ const { runCalibration } = await import(dist("calibrate/runCalibration.js"));
 const { buildOutlook } = await import(dist("outlook/buildOutlook.js"));
 const { runBrief } = await import(dist("cli/brief.js"));
 const { findBrowser } = await import(dist("briefing/findBrowser.js"));
-const { PdfPrinter } = await import(dist("briefing/printPdf.js"));
+const { PdfPrinter, BROWSER_ARGS } = await import(dist("briefing/printPdf.js"));
 const { runHindcast } = await import(dist("hindcast/runHindcast.js"));
 const { valuesByYear } = await import(dist("calibrate/activityByYear.js"));
 const { createRandom } = await import(dist("stats/createRandom.js"));
 
 const REPEATS = Number(process.env.BENCH_REPEATS ?? 5);
+const PAIRS = Number(process.env.BENCH_PAIRS ?? 7);
+const SECTIONS = new Set((process.env.BENCH_SECTIONS ?? "cold,batch,detail").split(",").map((name) => name.trim()));
+const BIN = join(root, "dist", "cli", "main.js");
+const TIME = existsSync("/usr/bin/time") ? "/usr/bin/time" : null;
 const demo = join(root, "demo-region");
 const scratch = mkdtempSync(join(tmpdir(), "firephase-bench-"));
 
@@ -123,6 +145,93 @@ function inventedHindcastInput(years) {
   };
 }
 
+/**
+ * Run one whole process (`node <args>`) to its end: wall time from spawn to exit (ms) and, with
+ * /usr/bin/time -v, the peak resident memory (MB). A non-zero exit stops the bench.
+ */
+function wholeProcess(args, cwd) {
+  const command = TIME === null ? [process.execPath, ...args] : [TIME, "-v", process.execPath, ...args];
+  const start = performance.now();
+  const run = spawnSync(command[0], command.slice(1), { cwd, encoding: "utf8", env: { ...process.env, FIREPHASE_DEBUG: "" } });
+  const ms = performance.now() - start;
+  if (run.status !== 0) throw new Error(`bench: ${args.join(" ")} exited with ${run.status}:\n${run.stderr}`);
+  const rss = /Maximum resident set size \(kbytes\): (\d+)/.exec(run.stderr ?? "");
+  return { ms, mb: rss === null ? null : Number(rss[1]) / 1024 };
+}
+
+/** Alternating pairs of whole processes (A B, B A, …); medians of each side and of the per-pair ratio B ÷ A. */
+function pairs(labelA, runA, labelB, runB, count) {
+  runA();
+  runB(); // one warm-up of each: the file cache, the unpacked browser
+  const a = [];
+  const b = [];
+  const ratios = [];
+  for (let i = 0; i < count; i++) {
+    const [first, second] = i % 2 === 0 ? [runA, runB] : [runB, runA];
+    const one = first();
+    const two = second();
+    const [x, y] = i % 2 === 0 ? [one, two] : [two, one];
+    a.push(x);
+    b.push(y);
+    ratios.push(y.ms / x.ms);
+  }
+  const side = (label, runs) => {
+    const mbs = runs.map((run) => run.mb).filter((mb) => mb !== null);
+    const result = { label, median: median(runs.map((run) => run.ms)), min: Math.min(...runs.map((run) => run.ms)), max: Math.max(...runs.map((run) => run.ms)), mb: mbs.length === 0 ? null : median(mbs) };
+    console.log(`${label.padEnd(52)} median ${result.median.toFixed(0).padStart(6)} ms  (min ${result.min.toFixed(0)}, max ${result.max.toFixed(0)}${result.mb === null ? "" : `, peak ${result.mb.toFixed(0)} MB`})`);
+    return result;
+  };
+  return { a: side(labelA, a), b: side(labelB, b), ratio: median(ratios) };
+}
+
+/** The floor script: the same browser, started by a plain puppeteer-core script, one trivial page printed to PDF. */
+function writeFloorScript(folder, browserPath) {
+  const puppeteerEntry = createRequire(join(root, "package.json")).resolve("puppeteer-core");
+  const path = join(folder, "floor.cjs");
+  writeFileSync(
+    path,
+    `const puppeteer = require(${JSON.stringify(puppeteerEntry)});
+const { mkdtempSync, rmSync } = require("node:fs");
+const { join } = require("node:path");
+const { tmpdir } = require("node:os");
+(async () => {
+  const userDataDir = mkdtempSync(join(tmpdir(), "firephase-floor-"));
+  const browser = await puppeteer.launch({ executablePath: ${JSON.stringify(browserPath)}, headless: true, userDataDir, args: ${JSON.stringify(BROWSER_ARGS)} });
+  const page = await browser.newPage();
+  await page.setContent("<!DOCTYPE html><p>floor</p>", { waitUntil: "load" });
+  await page.pdf({ format: "A4" });
+  await browser.close();
+  rmSync(userDataDir, { recursive: true, force: true });
+})().catch((error) => { console.error(error); process.exit(1); });
+`,
+  );
+  return path;
+}
+
+/**
+ * Write `count` regions generated from the demo into `folder` (r01, r02, …): each a copy of the
+ * demo with its own seed and name, and every 20th fire event left out starting at its own offset,
+ * so their records, odds and resamplings differ. Returns the folder names.
+ */
+function batchRegions(source, folder, count) {
+  const names = [];
+  const events = readFileSync(join(source, "fire-events.csv"), "utf8").replace(/^\uFEFF/, "").trim().split(/\r?\n/);
+  for (let k = 1; k <= count; k++) {
+    const name = `r${String(k).padStart(2, "0")}`;
+    const target = join(folder, name);
+    cpSync(source, target, { recursive: true, dereference: true });
+    rmSync(join(target, "issued"), { recursive: true, force: true });
+    const region = JSON.parse(readFileSync(join(source, "region.json"), "utf8"));
+    region.name = `Bench unit ${k} (generated from the invented demo)`;
+    region.seed = 1000 + k;
+    writeFileSync(join(target, "region.json"), `${JSON.stringify(region, null, 2)}\n`);
+    const kept = [events[0], ...events.slice(1).filter((_, i) => (i + k) % 20 !== 0)];
+    writeFileSync(join(target, "fire-events.csv"), `${kept.join("\n")}\n`);
+    names.push(name);
+  }
+  return names;
+}
+
 // Split a CSV into header and rows (the demo files have no quoted fields).
 function readCsv(path) {
   const [header, ...rows] = readFileSync(path, "utf8").replace(/^\uFEFF/, "").trim().split(/\r?\n/);
@@ -165,9 +274,53 @@ function scaleRegion(source, folder) {
   return { folder, sites: siteRows.length, years: `${firstYear - span}–${lastYear}` };
 }
 
+const headline = [];
 try {
   const browser = await findBrowser({ env: process.env });
   console.log(`firephase bench — Node ${process.version}, browser ${browser.executablePath} (${browser.source})`);
+  // The demo as a scratch copy: briefs keep nothing in demo-region/ and replace only their own files.
+  const demoCopy = join(scratch, "demo-region");
+  cpSync(demo, demoCopy, { recursive: true, dereference: true });
+  rmSync(join(demoCopy, "issued"), { recursive: true, force: true });
+  const briefArgs = (regions, extra) => [BIN, "brief", ...regions, "--issued", "2027-03-10", "--no-keep", "--force", "--browser", browser.executablePath, ...extra];
+  let single = null;
+  if (SECTIONS.has("cold")) {
+    console.log(`\nCold start: whole processes, ${PAIRS} alternating pairs`);
+    const check = pairs("node -e 0", () => wholeProcess(["-e", "0"], scratch), "firephase check demo-region", () => wholeProcess([BIN, "check", demoCopy], scratch), PAIRS);
+    const version = pairs("node -e 0", () => wholeProcess(["-e", "0"], scratch), "firephase --version", () => wholeProcess([BIN, "--version"], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
+    const floorScript = writeFloorScript(scratch, browser.executablePath);
+    const out = join(scratch, "cold.pdf");
+    const brief = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
+    single = brief.b;
+    headline.push(
+      `check demo-region ÷ node -e 0: ${check.ratio.toFixed(2)}× (target ≤ 2.5×; ${check.b.median.toFixed(0)} ms against ${check.a.median.toFixed(0)} ms)`,
+      `--version ÷ node -e 0: ${version.ratio.toFixed(2)}× (${version.b.median.toFixed(0)} ms)`,
+      `brief demo-region ÷ browser floor: ${brief.ratio.toFixed(2)}× (target ≤ 1.5×; ${brief.b.median.toFixed(0)} ms against ${brief.a.median.toFixed(0)} ms)`,
+    );
+  }
+  if (SECTIONS.has("batch")) {
+    const count = 20;
+    const batchFolder = join(scratch, "batch");
+    mkdirSync(batchFolder);
+    const names = batchRegions(demo, batchFolder, count);
+    const outDir = join(batchFolder, "out");
+    mkdirSync(outDir);
+    console.log(`\nBatch: ${count} regions generated from the demo, one process, one browser`);
+    if (single === null) {
+      const singleRuns = [0, 1, 2].map(() => wholeProcess(briefArgs([join(batchFolder, names[0])], ["--out", join(scratch, "single.pdf")]), scratch));
+      single = { median: median(singleRuns.map((run) => run.ms)) };
+    }
+    const runs = [0, 1].map(() => wholeProcess(briefArgs(names, ["--out-dir", outDir]), batchFolder));
+    const batch = median(runs.map((run) => run.ms));
+    const perMinute = (count * 60_000) / batch;
+    const marginal = (batch - single.median) / (count - 1);
+    console.log(`${`brief of ${count} regions`.padEnd(52)} median ${batch.toFixed(0).padStart(6)} ms  (${runs.length} runs${runs[0].mb === null ? "" : `, peak ${median(runs.map((run) => run.mb)).toFixed(0)} MB`})`);
+    headline.push(
+      `batch of ${count}: ${perMinute.toFixed(1)} regions per minute (${(perMinute * 60).toFixed(0)} per hour); marginal cost ${marginal.toFixed(0)} ms per region = ${(marginal / single.median).toFixed(2)}× one whole brief (${single.median.toFixed(0)} ms)`,
+    );
+  }
+  if (!SECTIONS.has("detail")) throw new Error("skip-detail");
+  console.log("\nDetail: in-process");
   const bigFolder = join(scratch, "region-x4");
   (await import("node:fs")).mkdirSync(bigFolder);
   const big = scaleRegion(demo, bigFolder);
@@ -204,7 +357,10 @@ try {
   );
   console.log("");
   console.log(`4× region / demo computation: ${(computeBig.median / computeDemo.median).toFixed(2)}×`);
-  console.log(`brief / floor: ${(brief.median / floor.median).toFixed(2)}× (target ≤ 1.5×); brief − floor = ${(brief.median - floor.median).toFixed(0)} ms`);
+  console.log(`in-process brief / floor: ${(brief.median / floor.median).toFixed(2)}×; brief − floor = ${(brief.median - floor.median).toFixed(0)} ms`);
+} catch (error) {
+  if (!(error instanceof Error && error.message === "skip-detail")) throw error;
 } finally {
   rmSync(scratch, { recursive: true, force: true });
+  if (headline.length > 0) console.log(`\nHeadline (whole processes, medians of alternating pairs)\n${headline.map((line) => `  ${line}`).join("\n")}`);
 }

@@ -122,7 +122,10 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
     }
     return printer;
   });
-  launching.catch(() => undefined); // observed below
+  let launchFailed = false;
+  launching.catch(() => {
+    launchFailed = true; // observed below; the regions waiting for it are not reported one by one
+  });
   let pending = 0;
   let pendingChanged: () => void = () => undefined;
   const printingDone = (): void => {
@@ -160,7 +163,7 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
       );
       const reported = task.then(() => {
         release();
-        context.onProgress?.(progressLine(outcomes[position] as BatchRegionOutcome, position, regions.length));
+        if (!launchFailed) context.onProgress?.(progressLine(outcomes[position] as BatchRegionOutcome, position, regions.length));
       });
       tasks.push(reported);
       await released;

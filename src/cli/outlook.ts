@@ -17,11 +17,16 @@ export function outlookCommand(): Command {
   return addOutlookOptions(
     new Command("outlook")
       .description("odds of a high-fire year for this season's index values, analog years and hindcast skill")
-      .argument("<region>", "region folder (holds region.json)"),
+      .argument("<regions...>", "region folder(s) (each holds region.json)"),
   )
-    .option("--json", "print the outlook as JSON (schema firephase.outlook/1)")
-    .action(async (region: string, options: { values?: string | readonly string[]; issued?: string; season?: string; json?: boolean }) => {
+    .option("--json", "print the outlook as JSON (schema firephase.outlook/1; with several regions one object per line)")
+    .action(async (regions: readonly string[], options: { values?: string | readonly string[]; issued?: string; season?: string; json?: boolean }) => {
       try {
+        if (regions.length > 1) {
+          await (await import("./outlookBatch.js")).outlookBatchAction(regions, options);
+          return;
+        }
+        const region = regions[0] as string;
         const workspace = await loadWorkspace(region);
         const request = resolveOutlookRequest(workspace, options, new Date());
         const calibration = runCalibration(workspace, { onProgress: progressReporter() });
