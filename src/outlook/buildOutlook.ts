@@ -93,7 +93,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     if (provisional) {
       warnings.push({
         code: "value-provisional",
-        message: `${index.name} = ${value} is provisional: computed from ${months.length === 0 ? "part" : months.join(", ")} of its ${window ?? "season"} window, which is not complete yet; the odds may change when it is`,
+        message: `${index.name} = ${formatValue(value)} is provisional: computed from ${months.length === 0 ? "part" : months.join(", ")} of its ${window ?? "season"} window, which is not complete yet; the odds may change when it is`,
       });
     }
     const margin = nearBoundaryMargin(index.sd);
@@ -196,7 +196,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     const alternative = forecastCell(training, shifted, ranking, jointMinYears, jointMaxQ);
     warnings.push({
       code: "basis-near-boundary",
-      message: `${name} (${value}) is within ${formatMargin(margin)} (${nearBoundarySd} of its standard deviation) of its ${nearest.toFixed(2)} phase boundary: had it been ${labelOf(name, otherPhase)}, the chance would be ${probabilityWords(alternative.fireYears, alternative.years.length)}`,
+      message: `${name} (${formatValue(value)}) is within ${formatMargin(margin)} (${nearBoundarySd} of its standard deviation) of its ${nearest.toFixed(2)} phase boundary: had it been ${labelOf(name, otherPhase)}, the chance would be ${probabilityWords(alternative.fireYears, alternative.years.length)}`,
     });
   });
   const n = cell.years.length;
@@ -235,7 +235,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     const side = curveOdds.beyondRange === "above" ? "above the largest" : "below the smallest";
     warnings.push({
       code: "curve-beyond-range",
-      message: `${curveOdds.index} = ${curveOdds.value} is ${side} calibration value (${formatValue(curveOdds.readAt)}): the response curve is read at ${formatValue(curveOdds.readAt)}, not beyond the record`,
+      message: `${curveOdds.index} = ${formatValue(curveOdds.value)} is ${side} calibration value (${formatValue(curveOdds.readAt)}): the response curve is read at ${formatValue(curveOdds.readAt)}, not beyond the record`,
     });
   }
   const curveHeadline = response === "curve" && curveOdds !== null;
@@ -248,7 +248,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const curveBasis =
     curveOdds === null
       ? ""
-      : `the ${curveOdds.index} response curve read at ${formatValue(curveOdds.readAt)}${curveOdds.beyondRange === null ? "" : ` (this season's ${curveOdds.value} is beyond the calibration range)`}: a logistic regression of high-fire year on ${curveOdds.index} over ${curveOdds.years} calibration years, ${curveOdds.index} being the index the phase rule selects (${basis})`;
+      : `the ${curveOdds.index} response curve read at ${formatValue(curveOdds.readAt)}${curveOdds.beyondRange === null ? "" : ` (this season's ${formatValue(curveOdds.value)} is beyond the calibration range)`}, a logistic regression of high-fire year on ${curveOdds.index} over ${curveOdds.years} calibration years; ${curveOdds.index} is the index the phase rule uses, whose odds come from ${basis}`;
   const headlineEstimate = curveHeadline && curveOdds !== null
     ? { estimate: curveOdds.estimate, lower: curveOdds.lower, upper: curveOdds.upper }
     : proportionEstimate(cell.fireYears, n, method);

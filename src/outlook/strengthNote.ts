@@ -23,7 +23,7 @@ export const STRONG_WITHIN_PHASE = 0.75;
  * @returns the sentence, or null when the value is not strong or weak within an outer phase
  * @example
  * strengthNote({ index: "ENSO", value: 1.6, estimate: 0.45, … }, calibration, training, new Map([["ENSO", 2]]));
- * // => "This season's ENSO value (1.6) is strong within its warm phase (above 82% of its 73 calibration years); the curve gives 45% (95% interval 31%–60%), against 30% for the warm phase as a whole."
+ * // => "This season's ENSO value (1.6) is strong within its warm phase (higher than 82% of the 73 warm years of the calibration); the curve gives 45% (95% interval 31–60%), against 30% for the warm phase as a whole."
  */
 export function strengthNote(
   curve: CurveOdds,
@@ -41,7 +41,7 @@ export function strengthNote(
   if (values.length === 0) return null;
   const beyond = values.filter((value) => (phase === last ? curve.value > value : curve.value < value)).length / values.length;
   const label = index.definition.labels[phase] ?? String(phase);
-  const side = phase === last ? "above" : "below";
+  const side = phase === last ? "higher" : "lower";
   const strength = beyond >= STRONG_WITHIN_PHASE ? "strong" : beyond <= 1 - STRONG_WITHIN_PHASE ? "weak" : null;
   if (strength === null) return null;
   const phaseOdds = index.phases[phase]?.probability;
@@ -49,7 +49,7 @@ export function strengthNote(
     phaseOdds === undefined || phaseOdds.estimate === null ? "" : `, against ${formatPercent(phaseOdds.estimate)} for the ${label} phase as a whole`;
   const beyondWords = curve.beyondRange === null ? "" : `, read at the ${curve.beyondRange === "above" ? "largest" : "smallest"} calibration value ${formatValue(curve.readAt)}`;
   return (
-    `This season's ${curve.index} value (${curve.value}) is ${strength} within its ${label} phase (${side} ${Math.round(beyond * 100)}% of its ${values.length} calibration years); ` +
+    `This season's ${curve.index} value (${formatValue(curve.value)}) is ${strength} within its ${label} phase (${side} than ${Math.round(beyond * 100)}% of the ${values.length} ${label} years of the calibration); ` +
     `the curve gives ${formatPercent(curve.estimate)} (95% interval ${formatPercentRange(curve.lower, curve.upper)}${beyondWords})${phaseWords}.`
   );
 }
@@ -67,7 +67,7 @@ function phaseValues(training: TrainingSet, indexValues: IndexValues, index: str
   return out;
 }
 
-/** An index value to three significant digits, for sentences. */
+/** An index value to four significant digits, for sentences (−1.6500000000000001 reads −1.65). */
 export function formatValue(value: number): string {
-  return Number(value.toPrecision(3)).toString();
+  return Number(value.toPrecision(4)).toString();
 }
