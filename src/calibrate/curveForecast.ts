@@ -31,6 +31,7 @@ export type CurveForecastResult = { readonly forecast: CurveForecast; readonly r
  * const cell = forecastCell(training, phases, ranking, 10, 0.05);
  * curveForecast(training, indexValues, cell, new Map([["ENSO", 1.6]]));
  * // => { forecast: { index: "ENSO", curve, reading: { estimate: 0.45, lower: 0.31, upper: 0.6, … } } }
+ * @see Agresti A. (2013) Categorical Data Analysis, 3rd ed., Wiley, §5.1 (the logistic model fitted here).
  */
 export function curveForecast(
   training: TrainingSet,
@@ -50,6 +51,12 @@ export function curveForecast(
 /**
  * The response curve of one index over a training set: the training years with a value of the index,
  * high-fire year or not (see fitResponseCurve; `options.points` as there).
+ *
+ * @param training - the training years and their high-fire years
+ * @param indexValues - index values by index name and year
+ * @param index - the index name (an index without values gives `curve: null` with a reason)
+ * @param options - `points: false` leaves out the reported curve points
+ * @returns the fit, or null with a reason (see fitResponseCurve)
  */
 export function fitOnTraining(
   training: TrainingSet,

@@ -135,10 +135,18 @@ export interface CurveReading {
  * with the pointwise 95% Wald band on the logit scale. A value beyond the calibration range is not
  * extrapolated: the curve is read at the nearest end of the range and `beyondRange` says so.
  *
+ * Formula: with the row r = [1, v] (or [1, v, v²]) at the read value v, logit = bᵀr, se = √(rᵀ Σ r), and the
+ * estimate and band are expit(logit) and expit(logit ∓ 1.96 se).
+ *
  * @param curve - a fitted curve (see {@link fitResponseCurve})
  * @param value - the value to read at (finite)
  * @returns the reading; there is no degenerate case once a curve exists
  * @throws RangeError when the value is not finite
+ * @example
+ * // O-ring fit (Agresti 2007, Table 5.10 data): 31 °F lies below the coldest launch, so the curve is read at 53 °F
+ * readResponseCurve(fitResponseCurve(temperatures, distress).curve, 31);
+ * // => { value: 31, readAt: 53, beyondRange: "below", estimate: 0.939, … }
+ * @see Agresti A. (2013) Categorical Data Analysis, 3rd ed., Wiley, §4.2.5 (Wald interval for the fitted probability).
  */
 export function readResponseCurve(curve: ResponseCurve, value: number): CurveReading {
   if (!Number.isFinite(value)) throw new RangeError(`readResponseCurve: value ${value} is not finite`);

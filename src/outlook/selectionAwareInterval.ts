@@ -104,7 +104,15 @@ export function selectionAwareInterval(input: SelectionIntervalInput): Selection
 
 /**
  * A sentence when the selection-aware interval and the plain interval of the headline differ much:
- * one more than {@link WIDTH_RATIO_MUCH} times as wide as the other. Null otherwise.
+ * one more than {@link WIDTH_RATIO_MUCH} times as wide as the other (width = upper − lower). Null otherwise.
+ *
+ * @param plain - the headline's own interval (Wilson, or the curve's Wald band); nulls give no sentence
+ * @param selection - the selection-aware interval, or null
+ * @param formatRange - how a range is written in words (e.g. "13–41%")
+ * @returns the sentence, or null when the widths are within a factor of 1.5 or an interval is missing
+ * @example
+ * selectionNote({ lower: 0.2, upper: 0.4 }, { lower: 0.1, upper: 0.46, … }, formatPercentRange);
+ * // => "Allowing for how the rule chose its index and past years from this same record, the 95% interval is 10–46%, 1.8 times as wide as …"
  */
 export function selectionNote(
   plain: { readonly lower: number | null; readonly upper: number | null },

@@ -99,6 +99,8 @@ describe("fitResponseCurve(values, outcomes) — published worked example", () =
     expect(cold.readAt).toBe(53);
     expect(cold.estimate).toBeCloseTo(logisticPrediction(fit, [53]).estimate, 10);
     expect(cold.estimate).toBeLessThan(0.9996);
+    // expit(15.0429 − 0.2322 × 53) = 0.939 from R's printed coefficients.
+    expect(cold.estimate).toBeCloseTo(1 / (1 + Math.exp(-(15.0429 - 0.2322 * 53))), 2);
     expect(readResponseCurve(curve, 90)).toEqual(expect.objectContaining({ beyondRange: "above", readAt: 81 }));
   });
 });
