@@ -214,3 +214,32 @@ describe("calibration JSON: modern and curve keys (C7)", () => {
     expect(second).toBe(first);
   });
 });
+
+/** Every null in `value` (objects only) has a `reason` or a `<key>Reason` beside it; returns the paths that do not. */
+function nullsWithoutReason(value: unknown, path = "$"): string[] {
+  if (Array.isArray(value)) return value.flatMap((item, i) => nullsWithoutReason(item, `${path}[${i}]`));
+  if (value === null || typeof value !== "object") return [];
+  const record = value as Record<string, unknown>;
+  return Object.entries(record).flatMap(([key, item]) =>
+    item === null
+      ? typeof record.reason === "string" || typeof record[`${key}Reason`] === "string"
+        ? []
+        : [`${path}.${key}`]
+      : nullsWithoutReason(item, `${path}.${key}`),
+  );
+}
+
+describe("calibration JSON: no null without a reason in modern and curve", () => {
+  it("a two-era region, a region without overlap, one without a modern record, and a no-fire index", () => {
+    const twoEra = toCalibrationJson(runCalibration(twoEraWorkspace(1.8))) as Record<string, any>;
+    expect(nullsWithoutReason(twoEra.modern)).toEqual([]);
+    for (const name of ["A", "B"]) expect(nullsWithoutReason({ curve: twoEra.indices[name].curve, curveReason: twoEra.indices[name].curveReason })).toEqual([]);
+    const none = toCalibrationJson(runCalibration(syntheticWorkspace({ effect: 1, seed: 2 }))) as Record<string, any>;
+    expect(nullsWithoutReason({ modern: none.modern, modernReason: none.modernReason })).toEqual([]);
+    // A modern record in which one group has no fire counts at all.
+    const base = twoEraWorkspace(1.8);
+    const noFires = toCalibrationJson(runCalibration({ ...base, modern: base.modern!.map((row) => ({ ...row, fires: null })) })) as Record<string, any>;
+    expect(noFires.modern.meaning.fires.highFire.median).toBeNull();
+    expect(nullsWithoutReason(noFires.modern)).toEqual([]);
+  });
+});

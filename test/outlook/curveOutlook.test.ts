@@ -130,3 +130,39 @@ describe("buildOutlook — index names that are built-in object properties", () 
     });
   }
 });
+
+/** Keys whose null is a documented value, not a missing statistic: a value inside the range, a yearly index. */
+const NULL_MEANS_NOT_APPLICABLE = new Set(["beyondRange", "window"]);
+
+/** Every null in `value` (objects only) has a `reason` or a `<key>Reason` beside it; returns the paths that do not. */
+function nullsWithoutReason(value: unknown, path = "$"): string[] {
+  if (Array.isArray(value)) return value.flatMap((item, i) => nullsWithoutReason(item, `${path}[${i}]`));
+  if (value === null || typeof value !== "object") return [];
+  const record = value as Record<string, unknown>;
+  return Object.entries(record).flatMap(([key, item]) =>
+    item === null
+      ? NULL_MEANS_NOT_APPLICABLE.has(key) || typeof record.reason === "string" || typeof record[`${key}Reason`] === "string"
+        ? []
+        : [`${path}.${key}`]
+      : nullsWithoutReason(item, `${path}.${key}`),
+  );
+}
+
+describe("outlook JSON: no null without a reason in fireYear and current", () => {
+  it("with values, without values (no curve), and on a 9-year record (no selection-aware interval)", () => {
+    const workspace = syntheticWorkspace({ effect: 1.6, seed: 11, methods: QUICK });
+    const cases = [
+      outlookOf(workspace, { values: { A: 1.2, B: 0 } }),
+      outlookOf(workspace, { values: {} }),
+      outlookOf(syntheticWorkspace({ effect: 1.6, seed: 11, first: 1981, last: 1989, methods: QUICK }), { values: { A: 1.2 } }),
+    ];
+    for (const outlook of cases) {
+      const json = toOutlookJson(outlook) as Record<string, any>;
+      expect(nullsWithoutReason({ fireYear: json.fireYear, current: json.current })).toEqual([]);
+    }
+    expect(cases[1]!.fireYear.curveOdds).toBeNull();
+    expect(cases[1]!.fireYear.curveReason).toMatch(/long-term average/);
+    expect(cases[2]!.fireYear.selectionInterval).toBeNull();
+    expect(cases[2]!.fireYear.selectionReason).toMatch(/only 9 calibration years/);
+  });
+});
