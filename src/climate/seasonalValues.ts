@@ -110,7 +110,8 @@ export function seasonYearOf(window: MonthWindow, year: number, month: number): 
  * Seasonal mean of a monthly index: for each season year, the arithmetic mean of the index over
  * the window's months, mean = (x₁ + … + x_L) / L. A season with any month missing (an empty cell
  * or an absent row) is `null` and listed in `incomplete`. Seasons run from the first to the last
- * season that has at least one month in the input.
+ * season that has at least one month with a value in the input (so the empty months at the end of
+ * a table's last row, not yet observed, add no season).
  *
  * @param monthly - monthly values, any order; (year, month) pairs must be unique
  * @param window - the season window
@@ -135,7 +136,9 @@ export function seasonalValues(monthly: readonly MonthlyValue[], window: MonthWi
     if (byMonth.has(key)) throw new RangeError(`month ${key} appears twice`);
     byMonth.set(key, row.value);
     const season = seasonYearOf(window, row.year, row.month);
-    if (season !== null) {
+    // Seasons are bounded by months that hold a value: the trailing missing-value codes of a wide
+    // table's last row (months not yet observed) do not make a season of their own.
+    if (season !== null && row.value !== null) {
       firstSeason = Math.min(firstSeason, season);
       lastSeason = Math.max(lastSeason, season);
     }
