@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { BrowserNotFoundError, findBrowser } from "../../src/briefing/findBrowser.js";
+import { BrowserLaunchError, BrowserNotFoundError, findBrowser } from "../../src/briefing/findBrowser.js";
 
 const never = (): boolean => false;
 const bundled = async (): Promise<string> => process.execPath; // any existing file stands in for the unpacked browser
@@ -23,5 +23,19 @@ describe("findBrowser(options)", () => {
       throw new Error("package missing");
     };
     await expect(findBrowser({ env: { PATH: "" }, isExecutable: never, unpackBundled: failing })).rejects.toThrow(/--browser PATH.*package missing/);
+  });
+});
+
+describe("findBrowser(options) messages for a browser that cannot be used", () => {
+  it("names the path, says what is wrong and how to choose another, without a third-party link", async () => {
+    await expect(findBrowser({ explicit: "/no/such/browser", env: {} })).rejects.toThrow(
+      "could not start the browser /no/such/browser (no such file): choose another with --browser PATH or FIREPHASE_BROWSER",
+    );
+    await expect(findBrowser({ explicit: "/tmp", env: {} })).rejects.toThrow("could not start the browser /tmp (it is a folder): choose another with --browser PATH or FIREPHASE_BROWSER");
+    await expect(findBrowser({ env: { FIREPHASE_BROWSER: "/no/such" } })).rejects.toThrow(
+      "could not start the browser /no/such (named by FIREPHASE_BROWSER; no such file): choose another with --browser PATH or FIREPHASE_BROWSER",
+    );
+    await expect(findBrowser({ explicit: "/no/such", env: {} })).rejects.toBeInstanceOf(BrowserLaunchError);
+    await expect(findBrowser({ explicit: " ", env: {} })).rejects.toThrow(/--browser is empty/);
   });
 });

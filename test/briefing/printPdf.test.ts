@@ -1,10 +1,14 @@
+import { existsSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { createServer, type Server } from "node:http";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import type { AddressInfo } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { buildBriefingView } from "../../src/briefing/buildBriefingView.js";
 import { embeddedFontCss } from "../../src/briefing/embeddedFonts.js";
 import { escapeHtml } from "../../src/briefing/escapeHtml.js";
-import { launchPrinter, type PdfPrinter } from "../../src/briefing/printPdf.js";
+import { BrowserLaunchError, BrowserNotFoundError } from "../../src/briefing/findBrowser.js";
+import { launchFailureReason, launchPrinter, PdfPrinter, processesUsingProfile, PROFILE_PREFIX, signalExitCode } from "../../src/briefing/printPdf.js";
 import { renderBriefingHtml } from "../../src/briefing/renderBriefingHtml.js";
 import { formatPercent } from "../../src/outlook/describeChance.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
@@ -155,5 +159,74 @@ describe("PdfPrinter.print(briefing html)", () => {
     const names = [...Buffer.from(printed.pdf).toString("latin1").matchAll(/\/BaseFont\s*\/([A-Za-z0-9+\-_]+)/g)].map((match) => match[1] ?? "");
     expect(names.length).toBeGreaterThan(0);
     for (const name of names) expect(name).toMatch(/SourceSans3/);
+  });
+});
+
+// Messages exactly as puppeteer-core 24 wrote them for these programs (captured on Linux).
+const PUPPETEER_MESSAGES = {
+  falseProgram: "Failed to launch the browser process:  Code: 1\n\nstderr:\n\n\nTROUBLESHOOTING: https://pptr.dev/troubleshooting\n",
+  usage: "Failed to launch the browser process:  Code: 3\n\nstderr:\nusage: thing [options]\n\nTROUBLESHOOTING: https://pptr.dev/troubleshooting\n",
+  echo: "Failed to launch the browser process:  Code: 0\n\nstderr:\n--allow-pre-commit-input --disable-background-networking --remote-debugging-port=0 --user-data-dir=/tmp/x\n\nTROUBLESHOOTING: https://pptr.dev/troubleshooting\n",
+  folder: "Failed to launch the browser process:  spawn /tmp EACCES\n\nstderr:\n\n\nTROUBLESHOOTING: https://pptr.dev/troubleshooting\n",
+  timeout: "Timed out after 20000 ms while waiting for the WS endpoint URL to appear in stdout!",
+  missing: "Browser was not found at the configured executablePath (/no/such)",
+};
+
+describe("launchFailureReason(puppeteer's error)", () => {
+  it("says what happened in plain words and drops the troubleshooting link", () => {
+    expect(launchFailureReason(new Error(PUPPETEER_MESSAGES.falseProgram))).toBe("it exited with code 1 before it was ready");
+    expect(launchFailureReason(new Error(PUPPETEER_MESSAGES.usage))).toBe('it exited with code 3 before it was ready, saying "usage: thing [options]"');
+    expect(launchFailureReason(new Error(PUPPETEER_MESSAGES.echo))).toBe("it exited with code 0 before it was ready");
+    expect(launchFailureReason(new Error(PUPPETEER_MESSAGES.folder))).toBe("it cannot be run (permission denied, or it is a folder)");
+    expect(launchFailureReason(new Error(PUPPETEER_MESSAGES.timeout))).toBe("it did not report a DevTools address within 20 s: it is probably not a Chrome or Chromium");
+    expect(launchFailureReason(new Error(PUPPETEER_MESSAGES.missing))).toBe("no such file");
+    for (const message of Object.values(PUPPETEER_MESSAGES)) expect(launchFailureReason(new Error(message))).not.toMatch(/https?:|TROUBLESHOOTING/);
+  });
+
+  it("escapes control characters a program printed", () => {
+    const reason = launchFailureReason(new Error("Failed to launch the browser process:  Code: 2\n\nstderr:\n\u001b]0;owned\u0007oops\n"));
+    expect(reason).toBe('it exited with code 2 before it was ready, saying "\\u{1b}]0;owned\\u{7}oops"');
+  });
+});
+
+describe("PdfPrinter.launch(a program that is not a browser)", () => {
+  it("/bin/false and a script that prints its usage give BrowserLaunchError naming the program, and leave no profile folder", async () => {
+    const folder = mkdtempSync(join(tmpdir(), "firephase-notbrowser-"));
+    const script = join(folder, "not-a-browser.sh");
+    writeFileSync(script, '#!/bin/sh\necho "usage: thing [options]" >&2\nexit 3\n', { mode: 0o755 });
+    const before = readdirSync(tmpdir()).filter((name) => name.startsWith(PROFILE_PREFIX)).length;
+    try {
+      await expect(PdfPrinter.launch({ executablePath: "/bin/false", source: "flag" })).rejects.toThrow(
+        "could not start the browser /bin/false (it exited with code 1 before it was ready): choose another with --browser PATH or FIREPHASE_BROWSER",
+      );
+      const error = await PdfPrinter.launch({ executablePath: script, source: "flag" }).catch((caught: unknown) => caught);
+      expect(error).toBeInstanceOf(BrowserLaunchError);
+      expect(error).toBeInstanceOf(BrowserNotFoundError); // so the CLI maps it to a usage error (exit 2)
+      expect((error as Error).message).toBe(
+        `could not start the browser ${script} (it exited with code 3 before it was ready, saying "usage: thing [options]"): choose another with --browser PATH or FIREPHASE_BROWSER`,
+      );
+      expect(readdirSync(tmpdir()).filter((name) => name.startsWith(PROFILE_PREFIX)).length).toBeLessThanOrEqual(before);
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+  });
+
+  it("signalExitCode is 128 + the signal number; the printer's profile folder is gone after close()", async () => {
+    expect([signalExitCode("SIGINT"), signalExitCode("SIGTERM"), signalExitCode("SIGHUP")]).toEqual([130, 143, 129]);
+    const own = await launchPrinter({});
+    const folder = own.userDataDir;
+    expect(existsSync(folder)).toBe(true);
+    expect(processesUsingProfile(folder).length).toBeGreaterThan(0);
+    await own.close();
+    await own.close(); // twice is safe
+    expect(existsSync(folder)).toBe(false);
+    expect(processesUsingProfile(folder)).toEqual([]);
+  });
+
+  it("queues prints made at the same time on its one page (each PDF has its own text)", async () => {
+    const texts = ["first document", "second document", "third document"];
+    const printed = await Promise.all(texts.map((text) => printer.print(`<!DOCTYPE html><p>${text}</p>`, { paper: "a4", ...footer })));
+    const pages = await Promise.all(printed.map((result) => pdfPageTexts(result.pdf)));
+    pages.forEach((page, position) => expect(flatText(page)).toContain(texts[position]));
   });
 });
