@@ -285,9 +285,9 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     response: curveHeadline ? ("curve" as const) : ("phase" as const),
     phaseOdds,
     curveOdds,
-    ...(curveOdds === null ? { curveReason: curveResult.reason ?? "no curve" } : {}),
+    ...(curveOdds === null ? { curveOddsReason: curveResult.reason ?? "no curve" } : {}),
     selectionInterval: selection.interval,
-    ...(selection.interval === null ? { selectionReason: selection.reason } : {}),
+    ...(selection.interval === null ? { selectionIntervalReason: selection.reason } : {}),
     selectionNote: note,
     strengthNote: strength,
   };

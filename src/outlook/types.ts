@@ -89,12 +89,12 @@ export interface Outlook {
     readonly response?: "phase" | "curve";
     /** The phase rule's odds (the headline itself when response is "phase"). */
     readonly phaseOdds?: PhaseOddsReading;
-    /** The curve rule's odds; null with `curveReason` when no curve could be read. */
+    /** The curve rule's odds; null with `curveOddsReason` when no curve could be read. */
     readonly curveOdds?: CurveOdds | null;
-    readonly curveReason?: string;
-    /** Selection-aware interval of the headline odds; null with `selectionReason` when not computable. */
+    readonly curveOddsReason?: string;
+    /** Selection-aware interval of the headline odds; null with `selectionIntervalReason` when not computable. */
     readonly selectionInterval?: SelectionInterval | null;
-    readonly selectionReason?: string;
+    readonly selectionIntervalReason?: string;
     /** A plain sentence when the selection-aware and the plain interval differ much; else null. */
     readonly selectionNote?: string | null;
     /** A plain sentence when this season's value is strong within its phase and what the curve gives; else null. */

@@ -161,8 +161,8 @@ describe("outlook JSON: no null without a reason in fireYear and current", () =>
       expect(nullsWithoutReason({ fireYear: json.fireYear, current: json.current })).toEqual([]);
     }
     expect(cases[1]!.fireYear.curveOdds).toBeNull();
-    expect(cases[1]!.fireYear.curveReason).toMatch(/long-term average/);
+    expect(cases[1]!.fireYear.curveOddsReason).toMatch(/long-term average/);
     expect(cases[2]!.fireYear.selectionInterval).toBeNull();
-    expect(cases[2]!.fireYear.selectionReason).toMatch(/only 9 calibration years/);
+    expect(cases[2]!.fireYear.selectionIntervalReason).toMatch(/only 9 calibration years/);
   });
 });
