@@ -7,20 +7,19 @@ import type { CurveOdds } from "./types.js";
 export const STRONG_WITHIN_PHASE = 0.75;
 
 /**
- * A plain sentence for page 1 when this season's value of the curve's index is strong (or weak)
- * within its phase, and what the response curve gives beside the phase's own odds.
+ * A plain sentence for page 1 when this season's value of the curve's index is strong within its
+ * phase, and what the response curve gives beside the phase's own odds.
  *
- * Only the outer phases have a direction: in the highest phase a value is "strong" when it is above at
- * least {@link STRONG_WITHIN_PHASE} of the phase's calibration values and "weak" when above at most
- * 1 − that share (near the cut); in the lowest phase the same with "below". A middle phase, or a value
- * in between, gives no sentence (null).
+ * Only the outer phases have a direction: in the highest phase a value is "strong" when it is higher
+ * than at least {@link STRONG_WITHIN_PHASE} of the phase's calibration values; in the lowest phase when
+ * it is lower than that share. A middle phase, or a value that is not strong, gives no sentence (null).
  *
  * @param curve - the curve's reading at this season's value
  * @param calibration - the calibration (phase odds of the index)
  * @param training - the calibration's training set (phase of each calibration year)
  * @param indexValues - index values by index name and year
  * @param currentPhase - this season's phase number per index
- * @returns the sentence, or null when the value is not strong or weak within an outer phase
+ * @returns the sentence, or null when the value is not strong within an outer phase
  * @example
  * strengthNote({ index: "ENSO", value: 1.6, estimate: 0.45, … }, calibration, training, new Map([["ENSO", 2]]));
  * // => "This season's ENSO value (1.6) is strong within its warm phase (higher than 82% of the 73 warm years of the calibration); the curve gives 45% (95% interval 31–60%), against 30% for the warm phase as a whole."
@@ -42,14 +41,13 @@ export function strengthNote(
   const beyond = values.filter((value) => (phase === last ? curve.value > value : curve.value < value)).length / values.length;
   const label = index.definition.labels[phase] ?? String(phase);
   const side = phase === last ? "higher" : "lower";
-  const strength = beyond >= STRONG_WITHIN_PHASE ? "strong" : beyond <= 1 - STRONG_WITHIN_PHASE ? "weak" : null;
-  if (strength === null) return null;
+  if (beyond < STRONG_WITHIN_PHASE) return null;
   const phaseOdds = index.phases[phase]?.probability;
   const phaseWords =
     phaseOdds === undefined || phaseOdds.estimate === null ? "" : `, against ${formatPercent(phaseOdds.estimate)} for the ${label} phase as a whole`;
   const beyondWords = curve.beyondRange === null ? "" : `, read at the ${curve.beyondRange === "above" ? "largest" : "smallest"} calibration value ${formatValue(curve.readAt)}`;
   return (
-    `This season's ${curve.index} value (${formatValue(curve.value)}) is ${strength} within its ${label} phase (${side} than ${Math.round(beyond * 100)}% of the ${values.length} ${label} years of the calibration); ` +
+    `This season's ${curve.index} value (${formatValue(curve.value)}) is strong within its ${label} phase (${side} than ${Math.round(beyond * 100)}% of the ${values.length} ${label} years of the calibration); ` +
     `the curve gives ${formatPercent(curve.estimate)} (95% interval ${formatPercentRange(curve.lower, curve.upper)}${beyondWords})${phaseWords}.`
   );
 }
