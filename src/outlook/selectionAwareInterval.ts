@@ -83,9 +83,10 @@ export function selectionAwareInterval(input: SelectionIntervalInput): Selection
   const names = input.indexSettings.map((settings) => settings.name);
   const estimates: number[] = [];
   const scratch = new Map<string, CurveScratch>();
+  const prepared = prepare(input);
   for (let resample = 0; resample < input.resamples; resample += 1) {
     const positions = movingBlockBootstrapIndices(n, blockYears, random);
-    estimates.push(oddsOnResample(input, positions, names, scratch));
+    estimates.push(oddsOnResample(input, prepared, positions, names, scratch));
   }
   estimates.sort((a, b) => a - b);
   const tail = (1 - level) / 2;
@@ -135,41 +136,69 @@ export function selectionNote(
   return null;
 }
 
+/** The calibration records by position (0 … n − 1 in `years`), prepared once for all resamples. */
+interface Prepared {
+  readonly fire: Uint8Array;
+  readonly category: readonly (ActivityCategory | undefined)[];
+  /** Index values by position, NaN where missing, for the indices of the settings. */
+  readonly values: ReadonlyMap<string, Float64Array>;
+}
+
+function prepare(input: SelectionIntervalInput): Prepared {
+  const n = input.years.length;
+  const fire = new Uint8Array(n);
+  const category: (ActivityCategory | undefined)[] = [];
+  input.years.forEach((year, position) => {
+    fire[position] = input.isFireYear.has(year) ? 1 : 0;
+    category.push(input.categories.byYear.get(year));
+  });
+  const values = new Map<string, Float64Array>();
+  for (const settings of input.indexSettings) {
+    const byYear = input.indexValues.get(settings.name);
+    values.set(
+      settings.name,
+      Float64Array.from(input.years, (year) => byYear?.get(year) ?? Number.NaN),
+    );
+  }
+  return { fire, category, values };
+}
+
 function oddsOnResample(
   input: SelectionIntervalInput,
+  prepared: Prepared,
   positions: readonly number[],
   names: readonly string[],
   scratch: Map<string, CurveScratch>,
 ): number {
   // Each drawn year gets its own number (its position in the resample), so a year drawn twice counts twice.
+  const n = positions.length;
   const pseudoYears = positions.map((_, i) => i);
-  const original = positions.map((position) => input.years[position] as number);
   const isFireYear = new Set<number>();
   const categories = new Map<number, ActivityCategory>();
-  original.forEach((year, i) => {
-    if (input.isFireYear.has(year)) isFireYear.add(i);
-    const category = input.categories.byYear.get(year);
+  for (let i = 0; i < n; i += 1) {
+    const position = positions[i] as number;
+    if (prepared.fire[position] === 1) isFireYear.add(i);
+    const category = prepared.category[position];
     if (category !== undefined) categories.set(i, category);
-  });
-  const indexValues = new Map<string, Map<number, number>>();
-  for (const [name, values] of input.indexValues) {
-    const resampled = new Map<number, number>();
-    original.forEach((year, i) => {
-      const value = values.get(year);
-      if (value !== undefined) resampled.set(i, value);
-    });
-    indexValues.set(name, resampled);
   }
   // The training set of the resample: phase cuts (and phases) redone from the resampled values; the
   // high-fire years and categories carried over from the whole period (the event definition stays fixed).
   const definitions = new Map<string, PhaseDefinition>();
   const phaseOf = new Map<string, Map<number, number>>();
   for (const settings of input.indexSettings) {
-    const values = indexValues.get(settings.name) ?? new Map<number, number>();
-    const definition = phaseDefinition(settings, [...values.values()]);
+    const byPosition = prepared.values.get(settings.name) as Float64Array;
+    const drawn: number[] = [];
+    const drawnYears: number[] = [];
+    for (let i = 0; i < n; i += 1) {
+      const value = byPosition[positions[i] as number] as number;
+      if (Number.isNaN(value)) continue;
+      drawn.push(value);
+      drawnYears.push(i);
+    }
+    const definition = phaseDefinition(settings, drawn);
     definitions.set(settings.name, definition);
     const phases = new Map<number, number>();
-    for (const [year, value] of values) phases.set(year, classifyPhase(value, definition.cuts));
+    drawnYears.forEach((year, k) => phases.set(year, classifyPhase(drawn[k] as number, definition.cuts)));
     phaseOf.set(settings.name, phases);
   }
   const fireYears = pseudoYears.filter((year) => isFireYear.has(year));
@@ -195,16 +224,16 @@ function oddsOnResample(
   // (the hindcast's tests check it against curveForecast) without allocating per fit.
   const index = cell.basis === "climatology" ? undefined : cell.indices[0];
   const value = index === undefined ? undefined : input.current.get(index);
-  const values = index === undefined ? undefined : indexValues.get(index);
-  if (index === undefined || value === undefined || values === undefined) return phaseOdds;
-  const buffers = scratch.get(index) ?? curveScratch(pseudoYears.length);
+  const byPosition = index === undefined ? undefined : prepared.values.get(index);
+  if (index === undefined || value === undefined || byPosition === undefined) return phaseOdds;
+  const buffers = scratch.get(index) ?? curveScratch(n);
   scratch.set(index, buffers);
   let m = 0;
-  for (const year of pseudoYears) {
-    const x = values.get(year);
-    if (x === undefined) continue;
+  for (let i = 0; i < n; i += 1) {
+    const x = byPosition[positions[i] as number] as number;
+    if (Number.isNaN(x)) continue;
     buffers.x[m] = x;
-    buffers.y[m] = isFireYear.has(year) ? 1 : 0;
+    buffers.y[m] = isFireYear.has(i) ? 1 : 0;
     m += 1;
   }
   const estimate = readFastResponseCurve(buffers, m, value);
