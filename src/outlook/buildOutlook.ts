@@ -277,7 +277,8 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     resamples: Number.isInteger(settings.methods.bootstrapResamples) && settings.methods.bootstrapResamples > 0 ? settings.methods.bootstrapResamples : 999,
     seed: settings.seed,
   });
-  const note = selectionNote(fireYear, selection.interval, formatPercentRange);
+  // With no current value there is no choice of index to allow for, so no sentence.
+  const note = currentPhase.size === 0 ? null : selectionNote(fireYear, selection.interval, formatPercentRange);
   const strength = curveOdds === null ? null : strengthNote(curveOdds, calibration, training, indexValues, currentPhase);
   const fireYearWithComparison = {
     ...fireYear,

@@ -163,6 +163,7 @@ describe("outlook JSON: no null without a reason in fireYear and current", () =>
     }
     expect(cases[1]!.fireYear.curveOdds).toBeNull();
     expect(cases[1]!.fireYear.curveOddsReason).toMatch(/long-term average/);
+    expect(cases[1]!.fireYear.selectionNote).toBeNull();
     expect(cases[2]!.fireYear.selectionInterval).toBeNull();
     expect(cases[2]!.fireYear.selectionIntervalReason).toMatch(/only 9 calibration years/);
   });
