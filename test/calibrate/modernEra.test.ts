@@ -3,6 +3,7 @@ import jStat from "jstat";
 import { MIN_MODERN_YEARS, modernEra } from "../../src/calibrate/modernEra.js";
 import { runCalibration } from "../../src/calibrate/runCalibration.js";
 import { toCalibrationJson } from "../../src/calibrate/toCalibrationJson.js";
+import { breslowDayTest } from "../../src/stats/breslowDayTest.js";
 import { createRandom } from "../../src/stats/createRandom.js";
 import type { ModernFireRow, Workspace } from "../../src/workspace/types.js";
 import { syntheticWorkspace } from "../helpers/syntheticWorkspace.js";
@@ -154,6 +155,11 @@ describe("modernEra — the two-era homogeneity test (Breslow–Day with Tarone'
       table[row]![fire.has(year) ? 0 : 1]! += 1;
     });
     expect(calibration.modern!.indices[0]!.homogeneity.tables.fireScar).toEqual(table);
+    // The p-value is Breslow–Day with Tarone's correction on exactly these two tables.
+    const homogeneity = calibration.modern!.indices[0]!.homogeneity;
+    const test = breslowDayTest([homogeneity.tables.fireScar, homogeneity.tables.modern], { tarone: true });
+    expect(homogeneity.pValue).toBe(test.pValue);
+    expect(homogeneity.statistic).toBe(test.statistic);
   });
 });
 
