@@ -14,7 +14,7 @@
 //      offset, so no two are the same), against one `brief`: regions per minute and the marginal
 //      cost of a region, (batch − single) ÷ 19.
 // Each ratio is the median of the per-pair ratios. BENCH_PAIRS (default 7) sets the number of
-// pairs, BENCH_SECTIONS=cold,batch,detail which sections run (default all).
+// pairs, BENCH_SECTIONS=check,brief,batch,detail which sections run (default all).
 //
 // Detail (in-process, after one warm-up, median of BENCH_REPEATS runs):
 //   1. the computation (load + calibrate + outlook with its leave-out hindcast) on demo-region,
@@ -27,7 +27,7 @@
 //   3. the whole `brief` of demo-region (browser launch, computation, HTML, PDF, atomic write),
 //   4. the floor: the same browser launched, printing a trivial page to PDF and closed,
 //   5. the hindcast alone on the demo (one pass; its permutation test with 999 shuffles; its bootstrap
-//      intervals and CORP band; the curve rule with 199 shuffles) and on 3,000 invented years,
+//      intervals and CORP band; the curve rule with 99 shuffles) and on 3,000 invented years,
 // and prints brief ÷ floor (target: at most 1.5). Each figure is the median of several runs
 // after one warm-up. Figures belong in the README's Performance section, never in tests.
 import { spawnSync } from "node:child_process";
@@ -56,7 +56,7 @@ const { createRandom } = await import(dist("stats/createRandom.js"));
 
 const REPEATS = Number(process.env.BENCH_REPEATS ?? 5);
 const PAIRS = Number(process.env.BENCH_PAIRS ?? 7);
-const SECTIONS = new Set((process.env.BENCH_SECTIONS ?? "cold,batch,detail").split(",").map((name) => name.trim()));
+const SECTIONS = new Set((process.env.BENCH_SECTIONS ?? "check,brief,batch,detail").split(",").map((name) => name.trim()));
 const BIN = join(root, "dist", "cli", "main.js");
 const TIME = existsSync("/usr/bin/time") ? "/usr/bin/time" : null;
 const demo = join(root, "demo-region");
@@ -284,17 +284,22 @@ try {
   rmSync(join(demoCopy, "issued"), { recursive: true, force: true });
   const briefArgs = (regions, extra) => [BIN, "brief", ...regions, "--issued", "2027-03-10", "--no-keep", "--force", "--browser", browser.executablePath, ...extra];
   let single = null;
-  if (SECTIONS.has("cold")) {
+  if (SECTIONS.has("check")) {
     console.log(`\nCold start: whole processes, ${PAIRS} alternating pairs`);
     const check = pairs("node -e 0", () => wholeProcess(["-e", "0"], scratch), "firephase check demo-region", () => wholeProcess([BIN, "check", demoCopy], scratch), PAIRS);
     const version = pairs("node -e 0", () => wholeProcess(["-e", "0"], scratch), "firephase --version", () => wholeProcess([BIN, "--version"], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
+    headline.push(
+      `check demo-region ÷ node -e 0: ${check.ratio.toFixed(2)}× (target ≤ 2.5×; ${check.b.median.toFixed(0)} ms against ${check.a.median.toFixed(0)} ms)`,
+      `--version ÷ node -e 0: ${version.ratio.toFixed(2)}× (${version.b.median.toFixed(0)} ms)`,
+    );
+  }
+  if (SECTIONS.has("brief")) {
+    console.log(`\nBrief: whole processes, ${PAIRS} alternating pairs`);
     const floorScript = writeFloorScript(scratch, browser.executablePath);
     const out = join(scratch, "cold.pdf");
     const brief = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
     single = brief.b;
     headline.push(
-      `check demo-region ÷ node -e 0: ${check.ratio.toFixed(2)}× (target ≤ 2.5×; ${check.b.median.toFixed(0)} ms against ${check.a.median.toFixed(0)} ms)`,
-      `--version ÷ node -e 0: ${version.ratio.toFixed(2)}× (${version.b.median.toFixed(0)} ms)`,
       `brief demo-region ÷ browser floor: ${brief.ratio.toFixed(2)}× (target ≤ 1.5×; ${brief.b.median.toFixed(0)} ms against ${brief.a.median.toFixed(0)} ms)`,
     );
   }
@@ -334,8 +339,8 @@ try {
   await timed("hindcast demo: one pass, no shuffles", REPEATS, () => runHindcast({ ...demoHindcast, ...lean }));
   await timed("hindcast demo: permutation test, 999 shuffles", REPEATS, () => runHindcast({ ...demoHindcast, ...lean, permutations: 999 }));
   await timed("hindcast demo: bootstrap intervals + CORP, 999", REPEATS, () => runHindcast({ ...demoHindcast, ...lean, bootstrapResamples: 999 }));
-  await timed("hindcast demo: curve rule + 199 shuffles", Math.max(1, Math.ceil(REPEATS / 2)), () =>
-    runHindcast({ ...demoHindcast, permutations: 199, curvePermutations: 199, bootstrapResamples: 0 }),
+  await timed("hindcast demo: curve rule + 99 shuffles", Math.max(1, Math.ceil(REPEATS / 2)), () =>
+    runHindcast({ ...demoHindcast, permutations: 99, curvePermutations: 99, bootstrapResamples: 0 }),
   );
   const longHindcast = inventedHindcastInput(3000);
   await timed("hindcast 3,000 years: one pass, no shuffles", Math.max(1, Math.ceil(REPEATS / 2)), () => runHindcast({ ...longHindcast, ...lean }));
