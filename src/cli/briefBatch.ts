@@ -8,7 +8,9 @@
  * printer at a time). A region that fails is reported with its problems and the others go on.
  * At the end an overview (CSV and a one-page PDF) lists every region's headline odds.
  */
+import { availableParallelism } from "node:os";
 import { readFile } from "node:fs/promises";
+import type { Worker } from "node:worker_threads";
 import { basename, isAbsolute, join, resolve } from "node:path";
 import { findBrowser } from "../briefing/findBrowser.js";
 import type { HtmlPrinter, PdfPrinter, PrintOptions, PrintResult } from "../briefing/printPdf.js";
@@ -16,6 +18,7 @@ import { PACKAGE_SAFETY_PATH, runBrief, type BriefContext, type BriefOptions, ty
 import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
 import { firephaseVersion } from "./version.js";
+import type { BriefWorkerData, FromBriefWorker, ToBriefWorker } from "./briefWorker.js";
 import { checkOutputTargets, OutputPathError, writeFilesAtomic } from "./writeFileAtomic.js";
 
 /** How one region of a batch ended. */
@@ -52,8 +55,15 @@ export function overviewNames(season: number, issued: string): { readonly pdf: s
   return { pdf: `${stem}.pdf`, csv: `${stem}.csv` };
 }
 
-/** The lines `brief <region>` would print on stderr for an error (file:line problems, or firephase: …). */
-function problemLines(error: unknown): string[] {
+/**
+ * The lines `brief <region>` would print on stderr for an error (file:line problems, or firephase: …).
+ *
+ * @param error - what a region's briefing threw.
+ * @returns the lines, without line ends.
+ * @example
+ * problemLines(new UsageError("--paper must be a4 or letter")); // => ["firephase: --paper must be a4 or letter"]
+ */
+export function problemLines(error: unknown): string[] {
   const lines: string[] = [];
   const saved = process.exitCode;
   handleError(error, { writeErr: (text) => lines.push(...text.split("\n").filter((line) => line !== "")), debug: process.env.FIREPHASE_DEBUG === "1" });
@@ -126,53 +136,15 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
   launching.catch(() => {
     launchFailed = true; // observed below; the regions waiting for it are not reported one by one
   });
-  let pending = 0;
-  let pendingChanged: () => void = () => undefined;
-  const printingDone = (): void => {
-    pending -= 1;
-    pendingChanged();
+  const report = (outcome: BatchRegionOutcome, position: number): void => {
+    if (!launchFailed) context.onProgress?.(progressLine(outcome, position, regions.length));
   };
   try {
-    const outcomes: BatchRegionOutcome[] = new Array(regions.length);
-    const tasks: Promise<void>[] = [];
-    for (let position = 0; position < regions.length; position++) {
-      const region = regions[position] as string;
-      let release: () => void = () => undefined;
-      const released = new Promise<void>((resolveRelease) => {
-        release = resolveRelease;
-      });
-      const shared: HtmlPrinter = {
-        async print(html: string, printOptions: PrintOptions): Promise<PrintResult> {
-          pending += 1;
-          release(); // this region's computation is done: the next one may start
-          try {
-            return await (await launching).print(html, printOptions);
-          } finally {
-            printingDone();
-          }
-        },
-      };
-      const started = Date.now();
-      const task = runBrief(region, { ...options, outDir }, { ...context, printer: shared }).then(
-        (result) => {
-          outcomes[position] = { region, ok: true, result, seconds: (Date.now() - started) / 1000 };
-        },
-        (error: unknown) => {
-          outcomes[position] = { region, ok: false, problems: problemLines(error), seconds: (Date.now() - started) / 1000 };
-        },
-      );
-      const reported = task.then(() => {
-        release();
-        if (!launchFailed) context.onProgress?.(progressLine(outcomes[position] as BatchRegionOutcome, position, regions.length));
-      });
-      tasks.push(reported);
-      await released;
-      // A browser that cannot start stops the batch: no region could be printed.
-      await Promise.race([launching.then(() => undefined), new Promise<void>((resolveNow) => setImmediate(resolveNow))]);
-      // Backpressure: at most two briefings wait for the printer.
-      while (pending >= 2) await new Promise<void>((resolveWait) => (pendingChanged = resolveWait));
-    }
-    await Promise.all(tasks);
+    const threads = batchThreads(regions.length, context.env);
+    const outcomes =
+      threads > 1 && COMPILED
+        ? await briefInWorkers(regions, { ...options, outDir }, context, launching, threads, report)
+        : await briefInThread(regions, { ...options, outDir }, context, launching, report);
     await launching; // rethrows a launch failure (BrowserNotFoundError → usage error in the action)
     const { coreCautions, failedOverviewRow, overviewCsv, overviewHtml, overviewRowFromOutlook } = await import("../briefing/overview.js");
     const rows = outcomes.map((outcome) =>
@@ -218,6 +190,171 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
   } finally {
     await launching.then((printer) => printer.close()).catch(() => undefined);
   }
+}
+
+/** The compiled worker script beside this module (under the TypeScript sources it does not exist, and the batch runs in this thread). */
+const WORKER_URL = new URL("./briefWorker.js", import.meta.url);
+const COMPILED = import.meta.url.endsWith(".js");
+
+/**
+ * How many threads compute regions: one per core the process may use (at least one, at most one
+ * per region); `FIREPHASE_THREADS` sets it (1 computes every region in the main thread).
+ *
+ * @example
+ * batchThreads(20, {}); // => 2 on a 2-core machine
+ */
+export function batchThreads(regions: number, env: Readonly<Record<string, string | undefined>>): number {
+  const asked = Number(env["FIREPHASE_THREADS"] ?? "");
+  const cores = Number.isInteger(asked) && asked >= 1 ? asked : availableParallelism();
+  return Math.max(1, Math.min(regions, cores, 16));
+}
+
+type Report = (outcome: BatchRegionOutcome, position: number) => void;
+
+/**
+ * Every region in this thread: the next region's computation starts as soon as the previous one
+ * hands its HTML to the printer (at most two briefings wait for the printer).
+ */
+async function briefInThread(
+  regions: readonly string[],
+  options: BriefOptions,
+  context: BriefBatchContext,
+  launching: Promise<PdfPrinter>,
+  report: Report,
+): Promise<BatchRegionOutcome[]> {
+  let pending = 0;
+  let pendingChanged: () => void = () => undefined;
+  const outcomes: BatchRegionOutcome[] = new Array(regions.length);
+  const tasks: Promise<void>[] = [];
+  for (let position = 0; position < regions.length; position++) {
+    const region = regions[position] as string;
+    let release: () => void = () => undefined;
+    const released = new Promise<void>((resolveRelease) => {
+      release = resolveRelease;
+    });
+    const shared: HtmlPrinter = {
+      async print(html: string, printOptions: PrintOptions): Promise<PrintResult> {
+        pending += 1;
+        release(); // this region's computation is done: the next one may start
+        try {
+          return await (await launching).print(html, printOptions);
+        } finally {
+          pending -= 1;
+          pendingChanged();
+        }
+      },
+    };
+    const started = Date.now();
+    const task = runBrief(region, options, { ...context, printer: shared }).then(
+      (result) => {
+        outcomes[position] = { region, ok: true, result, seconds: (Date.now() - started) / 1000 };
+      },
+      (error: unknown) => {
+        outcomes[position] = { region, ok: false, problems: problemLines(error), seconds: (Date.now() - started) / 1000 };
+      },
+    );
+    tasks.push(
+      task.then(() => {
+        release();
+        report(outcomes[position] as BatchRegionOutcome, position);
+      }),
+    );
+    await released;
+    // A browser that cannot start stops the batch: no region could be printed.
+    await Promise.race([launching.then(() => undefined), new Promise<void>((resolveNow) => setImmediate(resolveNow))]);
+    while (pending >= 2) await new Promise<void>((resolveWait) => (pendingChanged = resolveWait));
+  }
+  await Promise.all(tasks);
+  return outcomes;
+}
+
+/**
+ * Regions computed by `threads` worker threads at once (see briefWorker.ts); this thread prints
+ * their HTML on the one browser, in the order it arrives. A worker gets its next region when it
+ * hands the previous one to the printer; at most `threads + 1` briefings wait for the printer.
+ */
+async function briefInWorkers(
+  regions: readonly string[],
+  options: BriefOptions,
+  context: BriefBatchContext,
+  launching: Promise<PdfPrinter>,
+  threads: number,
+  report: Report,
+): Promise<BatchRegionOutcome[]> {
+  const { Worker } = await import("node:worker_threads");
+  const outcomes: BatchRegionOutcome[] = new Array(regions.length);
+  const data: BriefWorkerData = {
+    options,
+    cwd: context.cwd,
+    todayMs: context.today.getTime(),
+    env: { ...context.env },
+    ...(context.safetyPath === undefined ? {} : { safetyPath: context.safetyPath }),
+  };
+  let next = 0;
+  let done = 0;
+  let pending = 0;
+  const starving: Worker[] = [];
+  const printedPositions = new Set<number>();
+  const workers: Worker[] = [];
+  return await new Promise<BatchRegionOutcome[]>((resolveAll, rejectAll) => {
+    let failed = false;
+    const fail = (error: unknown): void => {
+      if (failed) return;
+      failed = true;
+      rejectAll(error);
+    };
+    const handOut = (worker: Worker): void => {
+      if (next >= regions.length) return;
+      if (pending > threads) {
+        starving.push(worker);
+        return;
+      }
+      const position = next++;
+      worker.postMessage({ type: "region", position, region: regions[position] as string } satisfies ToBriefWorker);
+    };
+    const feedStarving = (): void => {
+      while (starving.length > 0 && pending <= threads && next < regions.length) handOut(starving.shift() as Worker);
+    };
+    for (let i = 0; i < threads; i++) {
+      const worker = new Worker(WORKER_URL, { workerData: data });
+      workers.push(worker);
+      worker.on("message", (message: FromBriefWorker) => {
+        if (message.type === "print") {
+          pending += 1;
+          printedPositions.add(message.position);
+          handOut(worker); // its computation is done: give it the next region
+          launching
+            .then((printer) => printer.print(message.html, message.options))
+            .then(
+              (printed) => worker.postMessage({ type: "printed", id: message.id, pdf: printed.pdf } satisfies ToBriefWorker),
+              (error: unknown) => worker.postMessage({ type: "printed", id: message.id, error: error instanceof Error ? error.message : String(error) } satisfies ToBriefWorker),
+            )
+            .finally(() => {
+              pending -= 1;
+              feedStarving();
+            });
+          return;
+        }
+        outcomes[message.position] = message.outcome;
+        report(message.outcome, message.position);
+        done += 1;
+        if (!printedPositions.has(message.position)) handOut(worker); // it failed before reaching the printer
+        if (done === regions.length) {
+          for (const each of workers) void each.terminate();
+          resolveAll(outcomes);
+        }
+      });
+      worker.on("error", (error) => {
+        for (const each of workers) void each.terminate();
+        fail(error);
+      });
+      handOut(worker);
+    }
+    launching.catch((error: unknown) => {
+      for (const each of workers) void each.terminate();
+      fail(error);
+    });
+  });
 }
 
 /** `[2/5] north: briefing-north-2027-2027-03-10.pdf, 12 pages (3.1 s)` and its notes, or `[3/5] south: failed (2 problems):` and the problems. */

@@ -6,7 +6,7 @@ import { overviewNames, runBriefBatch } from "../../src/cli/briefBatch.js";
 import { UsageError } from "../../src/cli/errors.js";
 import { jsonLine } from "../../src/cli/outlookBatch.js";
 import { flatText, pdfPageTexts } from "../briefing/pdfText.js";
-import { runInProcess } from "./helpers.js";
+import { buildOnce, runBuilt, runInProcess } from "./helpers.js";
 
 // Three small regions in a temp folder: two valid ones that differ (their own names and ENSO cuts,
 // so their odds differ) and one with a bad latitude. One browser for the whole file.
@@ -108,6 +108,20 @@ describe("firephase brief <region> <region> <region> (one browser, an overview)"
     expect(text.indexOf(first)).toBeLessThan(text.indexOf(second));
     expect(text).toContain("Not briefed");
   }, 180_000);
+
+  it("gives the same overview when worker threads compute the regions (the built CLI, FIREPHASE_THREADS=2)", async () => {
+    buildOnce();
+    const inThread = join(work, "out");
+    const threaded = join(work, "out-threads");
+    mkdirSync(threaded);
+    const run = runBuilt(["brief", north, bad, south, "--out-dir", threaded, "--no-keep", "--issued", ISSUED, "--values", values[0] as string], { FIREPHASE_THREADS: "2" });
+    expect(run.code).toBe(1);
+    expect(readdirSync(threaded).sort()).toEqual(readdirSync(inThread).sort());
+    const names = overviewNames(2027, ISSUED);
+    const withoutPdf = (folder: string): string[][] => parseCsv(readFileSync(join(folder, names.csv), "utf8")).map((row) => row.filter((_, i) => i !== 15));
+    expect(withoutPdf(threaded)).toEqual(withoutPdf(inThread));
+    expect(run.stderr).toContain(`[2/3] ${bad}: failed (1 problem):`);
+  }, 240_000);
 
   it("refuses --out and --html with several regions, a region given twice and two folders of one name (exit 2, no browser)", async () => {
     const context = { cwd: work, today: new Date(2027, 2, 10), env: { PATH: process.env.PATH } };
