@@ -21,6 +21,20 @@ import { clipText, formatCount, formatDecimal, formatLongDate, formatMoment, for
 import { markdownBlocks, type MarkdownBlock } from "./markdownBlocks.js";
 import { METHOD_CITATIONS, type MethodCitation } from "./methodCitations.js";
 import { trustSvg, type TrustedMarkup } from "./trustedMarkup.js";
+import {
+  curveView,
+  type CurveView,
+  hindcastExtras,
+  type HindcastExtras,
+  modernLine,
+  pastOutlooksView,
+  type PastOutlooksView,
+  sinceLastView,
+  type SinceLastView,
+  summarizeWarnings,
+  thenAndNowView,
+  type ThenAndNowView,
+} from "./briefingSections.js";
 
 /** The words printed wherever a statistic is null. */
 export const NOT_ENOUGH_DATA = "not enough data";
@@ -101,6 +115,8 @@ export interface BriefingView {
     readonly base: ProbabilityText;
     /** Whether this season differs from an average year beyond the uncertainty, in words (plus the ratio when it does). */
     readonly comparison: string;
+    /** The selection-aware interval beside the cell's own, e.g. "5–48% allowing for how the rule chose its index"; empty when none. */
+    readonly selectionText: string;
     /** The past years the odds are read from, in plain words (no test statistics). */
     readonly basis: string;
     readonly definition: string;
@@ -183,7 +199,19 @@ export interface BriefingView {
     readonly reliabilityChart: TrustedMarkup;
     readonly rocChart: TrustedMarkup;
     readonly caption: string;
+    /** Chance test, bootstrap intervals, CORP diagram, both rules, count note. */
+    readonly extras: HindcastExtras;
   };
+  /** "Then and now": the modern record beside the fire-scar era. */
+  readonly thenAndNow: ThenAndNowView;
+  /** "How our past outlooks turned out". */
+  readonly pastOutlooks: PastOutlooksView;
+  /** "Since the last briefing". */
+  readonly sinceLast: SinceLastView;
+  /** Page-1 lines: the modern check, the curve's words, the selection-aware interval. */
+  readonly pageOneNotes: readonly string[];
+  /** "Made 10 March 2027, 08:15 UTC" (the moment the PDF was made), or null when not given. */
+  readonly madeText: string | null;
   readonly methods: readonly MethodCitation[];
   readonly settings: readonly LabelValue[];
   readonly files: readonly { readonly role: string; readonly path: string; readonly sha256: string; readonly bytes: string }[];
@@ -227,6 +255,8 @@ export interface IndexView {
     readonly rows: readonly { readonly lag: string; readonly r: string; readonly pValue: string; readonly effectiveN: string }[];
   };
   readonly stability: { readonly chart: TrustedMarkup; readonly caption: string };
+  /** The response curve (drawn for an index with a clear link). */
+  readonly curve: CurveView;
 }
 
 /** "p = 0.03" or "p < 0.001" (also for q). */
@@ -314,7 +344,8 @@ function strongestPair(calibration: Calibration, outlook: Outlook): [IndexCalibr
   return first !== undefined && second !== undefined ? [first, second] : null;
 }
 
-function buildIndexView(index: IndexCalibration, calibration: Calibration, outlook: Outlook): IndexView {
+function buildIndexView(index: IndexCalibration, calibration: Calibration, outlook: Outlook, yearValues: ReadonlyMap<number, number>): IndexView {
+  const fireYearSet = new Set(calibration.fireYears.years);
   const period = calibration.period;
   const current = outlook.current.find((phase) => phase.index === index.name);
   const tests = new Map(index.contingency.perPhase.map((test) => [test.label, test]));
@@ -449,6 +480,14 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
         "Pearson r at block lags (negative: the index leads), p-values from the effective sample size.",
       rows: aggregatedRows,
     },
+    curve: curveView(
+      index,
+      calibration.years.flatMap((year) => {
+        const value = yearValues.get(year);
+        return value === undefined ? [] : [{ value, fireYear: fireYearSet.has(year) }];
+      }),
+      current === undefined ? null : current.value,
+    ),
     stability: {
       chart: trustSvg(stabilitySvg),
       caption:
@@ -593,14 +632,38 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
   }));
 
   const warningsSeen = new Set<string>();
-  const dataNotes: string[] = [];
+  const noteMessages: string[] = [];
+  const noteCodes: string[] = [];
   for (const warning of [...workspace.warnings, ...calibration.warnings, ...outlook.warnings]) {
     // Paths in reader warnings are relative to the region folder in the briefing, never a machine's absolute path.
-    const message = warning.message.split(`${workspace.root}${sep}`).join("");
+    const message = clipText(warning.message.split(`${workspace.root}${sep}`).join(""), 400);
     if (warningsSeen.has(message)) continue;
     warningsSeen.add(message);
-    dataNotes.push(message);
+    noteMessages.push(message);
+    noteCodes.push(warning.code);
   }
+  // Many close site pairs are summarized (count and the closest); the full list stays in check --json.
+  const dataNotes = [...summarizeWarnings(noteMessages, noteCodes, 5).notes];
+
+  const curveOdds = outlook.fireYear.curveOdds ?? null;
+  const phaseOdds = outlook.fireYear.phaseOdds;
+  const pageOneNotes: string[] = [];
+  const selection = outlook.fireYear.selectionInterval;
+  const selectionShown = selection !== null && selection !== undefined && isFiniteNumber(selection.lower) && isFiniteNumber(selection.upper);
+  const selectionText = selectionShown
+    ? `${formatPercentRange(selection.lower, selection.upper)} allowing for the rule's choice of index`
+    : "";
+  if (outlook.fireYear.strengthNote !== null && outlook.fireYear.strengthNote !== undefined && curveOdds !== null) {
+    const phaseLabel = outlook.current.find((phase) => phase.index === curveOdds.index)?.label ?? "";
+    const phaseChance = outlook.perIndex.find((entry) => entry.index === curveOdds.index)?.probability.estimate ?? phaseOdds?.estimate ?? null;
+    pageOneNotes.push(
+      `This season's ${clipText(curveOdds.index, 40)} value (${formatNumber(curveOdds.value, 2)}) is strong within its ${phaseLabel} phase: ` +
+        `the response curve gives ${formatPercent(curveOdds.estimate)} (95% interval ${formatPercentRange(curveOdds.lower, curveOdds.upper)})` +
+        (isFiniteNumber(phaseChance) ? `, against ${formatPercent(phaseChance)} for the ${phaseLabel} phase as a whole.` : ".") +
+        (curveOdds.beyondRange !== null ? ` The value lies ${curveOdds.beyondRange} every past year, so the curve is read at the record's edge.` : ""),
+    );
+  }
+  pageOneNotes.push(modernLine(calibration, outlook));
 
   const labelOf = new Map(outlook.current.map((phase) => [phase.index, phase.label]));
   const phaseWords = outlook.fireYear.basisIndices.map((name) => `${name} ${labelOf.get(name) ?? ""}`.trim());
@@ -681,6 +744,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         outlook.fireYear.comparedWithBase === "not distinguishable"
           ? comparisonSentence(outlook.fireYear, outlook.baseRate)
           : `${comparisonSentence(outlook.fireYear, outlook.baseRate)} ${chanceComparison(outlook.fireYear.estimate, outlook.baseRate.estimate)}`.trim(),
+      selectionText,
       basis: plainBasis,
       methodNote: `How the past years were chosen: ${sentence(outlook.fireYear.basis)}`,
       definition:
@@ -690,8 +754,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     categories: {
       rows: categoryKeys.map(([key, label]) => ({ label, chance: probabilityText(outlook.categories[key]), averageYear: formatPercent(shares[key]) })),
       note:
-        `Categories split ${period.first}–${period.last} fire activity at its terciles. An average year of that period was below normal ` +
-        `${formatPercent(shares.below)} of the time, near ${formatPercent(shares.near)}, above ${formatPercent(shares.above)} (the diamonds)` +
+        `Categories split ${period.first}–${period.last} fire activity at its terciles; the diamonds mark an average year ` +
+        `(below ${formatPercent(shares.below)}, near ${formatPercent(shares.near)}, above ${formatPercent(shares.above)})` +
         (Math.max(Math.abs(shares.below - 1 / 3), Math.abs(shares.near - 1 / 3), Math.abs(shares.above - 1 / 3)) > 0.02
           ? ": years with equal activity (often no fire) stay in one category, so the shares are not a third each."
           : "."),
@@ -727,7 +791,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
             ? ""
             : months.length === 0
               ? "provisional: the season's months are not all in yet"
-              : `provisional: ${plural(months.length, "month", "months")} of the window so far (${months[0]}${months.length > 1 ? ` to ${months[months.length - 1]}` : ""})`,
+              : `${plural(months.length, "month", "months")} so far (${months[0]}${months.length > 1 ? ` to ${months[months.length - 1]}` : ""})`,
           note: phase.nearBoundary ? `within ${formatNumber(margin, 2)} of a cut: a small change would change the phase` : "",
         };
       }),
@@ -747,13 +811,12 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         : `Hindcast scores: ${missing(skill.reason)}.`,
     },
     howToRead: [
-      "The large figure is this season's chance of a high-fire year, from past years with the same index phases; the range is its 95% interval.",
-      "Set it against an average year: higher odds tilt the season but do not make a bad one certain; odds near average mean the indices say little.",
-      "The hindcast box says whether this method beat the average year on past years it did not see; without skill, plan for an average year.",
+      "The large figure is this season's chance of a high-fire year; the range is its 95% interval.",
+      "Compare it with an average year: higher odds tilt the season, they do not make a bad one certain.",
+      "The hindcast box says whether the method beat the average year on past years; if not, plan for an average year.",
     ],
     footnotes: [
       sourcesNote,
-      outlook.current.length === 0 ? "" : `From usual: standard deviations (SD) from the ${period.first}–${period.last} mean of each index.`,
     ].filter((note) => note !== ""),
     cautions: [
       "This is a statistical outlook built from past fire and climate records. It does not forecast weather, fire danger or any single fire.",
@@ -762,7 +825,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       "Even at higher odds most seasons are not high-fire years, and a quiet outlook does not mean a quiet season.",
     ],
     readWithCare: outlook.warnings.map((warning) => sentence(warning.message)),
-    indices: calibration.indices.map((index) => buildIndexView(index, calibration, outlook)),
+    indices: calibration.indices.map((index) => buildIndexView(index, calibration, outlook, valueMap(index.name))),
     analogs: {
       available: outlook.analogs.length > 0,
       missingText:
@@ -860,9 +923,15 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       reliabilityChart: trustSvg(reliabilityDiagram({ bins: skill.reliability, climatology: calibration.baseRate.estimate ?? 0 })),
       rocChart: trustSvg(rocCurveChart({ points: skill.rocCurve, area: skill.rocArea })),
       caption:
-        "Reliability: when the method said a given chance, how often a high-fire year followed (points near the diagonal are reliable). " +
+        "Reliability: when the method said a given chance, how often a high-fire year followed — the recalibrated curve of the hindcast's own forecasts; inside the band it is as reliable as chance allows. " +
         "ROC: hit rate against false-alarm rate over all probability thresholds.",
+      extras: hindcastExtras(skill, calibration),
     },
+    thenAndNow: thenAndNowView(calibration),
+    pastOutlooks: pastOutlooksView(inputs.review),
+    sinceLast: sinceLastView(inputs.sinceLast),
+    pageOneNotes,
+    madeText: inputs.madeAt === undefined ? null : `Made ${formatMoment(inputs.madeAt)}`,
     methods: METHOD_CITATIONS,
     settings: settingsRows,
     files: workspace.files.map((file) => ({ role: file.role, path: file.path, sha256: file.sha256, bytes: formatCount(file.bytes) })),

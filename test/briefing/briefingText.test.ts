@@ -195,7 +195,7 @@ describe("buildBriefingView(inputs)", () => {
   });
   it("shows each category's average-year (realised) share, not one in three", () => {
     expect(view.categories.rows.map((row) => row.averageYear)).toEqual(["33%", "33%", "33%"]);
-    expect(view.categories.note).toContain("below normal 33% of the time, near 33%, above 33%");
+    expect(view.categories.note).toContain("the diamonds mark an average year (below 33%, near 33%, above 33%)");
     expect(view.categories.chart.trustedMarkup).not.toContain("Equal odds");
     expect(view.categories.chart.trustedMarkup).toContain('class="average-year"');
     const rpss = view.hindcast.scores.find((score) => score.score === "Ranked probability skill score");
