@@ -76,7 +76,7 @@ export function hindcastExtras(skill: Skill, calibration: Calibration): Hindcast
   const chanceText = isFiniteNumber(p)
     ? `Chance test: in ${formatCount(skill.permutations ?? 0)} shuffles of the fire record across years` +
       (isFiniteNumber(skill.permutationBlockYears) ? ` (in blocks of ${skill.permutationBlockYears} years)` : "") +
-      `, the whole hindcast rerun each time, ${p <= 0.05 ? "few" : "many"} scored as well as the real record: permutation p = ${formatPValue(p).replace("<", "< ")}` +
+      `, the whole hindcast rerun each time, ${p <= 0.05 ? "few" : "many"} scored as well as the real record: permutation p ${formatPValue(p).startsWith("<") ? `< ${formatPValue(p).slice(1)}` : `= ${formatPValue(p)}`}` +
       ` (the share of shuffles at least as good, counting the real record; skill needs p at most 0.05).`
     : `Chance test: ${missing(skill.skillPValueReason)}.`;
   const intervals = skill.intervals;
@@ -347,7 +347,8 @@ export function pastOutlooksView(review: Review | null | undefined): PastOutlook
       value: isFiniteNumber(review.hitRate.value) ? `${review.hitRate.hits} of ${review.hitRate.highFireYears}` : missing(review.hitRate.reason),
     },
   ];
-  return { available: true, missingText: null, rows, scores, warnings: review.warnings.map((warning) => warning.message) };
+  const capital = (text: string): string => (text === "" ? text : text.charAt(0).toUpperCase() + text.slice(1));
+  return { available: true, missingText: null, rows, scores, warnings: review.warnings.map((warning) => capital(clipText(warning.message, 400))) };
 }
 
 /** "Since the last briefing". */
@@ -379,7 +380,8 @@ export function sinceLastView(since: SinceLastBriefing | null | undefined): Sinc
       rows.push({ what: `Chance of ${key}-normal activity`, before: formatPercent(since.categories.before[key]), now: formatPercent(since.categories.now[key]) });
     }
   }
-  return { available: true, text: `Compared with the outlook issued ${since.previous.issued} for ${since.previous.season} (${since.relation}). ${since.sentence}`, rows };
+  const relation = since.relation === "same season" ? "an earlier outlook for this season" : "last season's outlook";
+  return { available: true, text: `${since.sentence} (Compared with ${relation}.)`, rows };
 }
 
 /** The close-pair warnings of the fire record, summarized for the PDF. */

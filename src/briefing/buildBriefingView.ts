@@ -717,12 +717,14 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
   ];
 
   return {
-    documentTitle: `Fire-season outlook ${outlook.season}: ${outlook.region}`,
+    documentTitle: `Fire-season outlook ${outlook.season}: ${clipText(outlook.region, 120)}`,
     bandText: BAND_TEXT,
     paper: inputs.paper,
     header: {
-      region: outlook.region,
-      description: settings.description,
+      // Free text is bounded for the page (the reader bounds it at load too): a very long name
+      // must not push page 1 onto a second page.
+      region: clipText(outlook.region, 120),
+      description: settings.description === null ? null : clipText(settings.description, 400),
       issuedText: `Issued ${issuedLong}`,
       issuedIso: outlook.issued,
       seasonText: `for the ${outlook.season} fire season`,
@@ -937,7 +939,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     files: workspace.files.map((file) => ({ role: file.role, path: file.path, sha256: file.sha256, bytes: formatCount(file.bytes) })),
     dataNotes,
     toolVersion: inputs.toolVersion,
-    footerText: `${outlook.region} · fire-season outlook ${outlook.season} · Issued ${issuedLong}`,
+    footerText: `${clipText(outlook.region, 70)} · fire-season outlook ${outlook.season} · Issued ${issuedLong}`,
     safety: markdownBlocks(inputs.safetyMarkdown),
   };
 }

@@ -37,8 +37,8 @@ const MARGINS = { top: 14, right: 14, bottom: 64, left: 58 };
  * calibrated forecast would give, shaded in the chance colour) and the dashed diagonal of
  * perfect reliability; the average year's chance is a khaki dotted line.
  *
- * Both axes share one range, 0 up to the next 10% above the largest forecast, recalibrated value
- * or band limit (at least 50%), in whole percent. Non-finite points are left out; with none left
+ * Both axes share one range, 0 up to 10% beyond the largest forecast or recalibrated value (at
+ * least 0–40%), in whole percent; band limits above it are cut at the edge. Non-finite points are left out; with none left
  * the plot shows "not enough data" over the axes.
  *
  * @param input - curve points, band, band level and base rate (probabilities in [0, 1]).
@@ -62,10 +62,11 @@ export function corpReliabilityChart(input: Readonly<CorpReliabilityChartInput>,
   const frame = makeFrame(options, { width: 340, height: 300 }, (width) => ({ ...MARGINS, bottom: MARGINS.bottom + legendExtraHeight(entries, width) }));
   const points = input.points.filter((point) => isDrawable(point.forecast) && isDrawable(point.calibrated) && isDrawable(point.count)).slice().sort((a, b) => a.forecast - b.forecast);
   const band = input.band.filter((entry) => isDrawable(entry.forecast) && isDrawable(entry.lower) && isDrawable(entry.upper)).slice().sort((a, b) => a.forecast - b.forecast);
-  let top = 0.5;
+  // The axes cover the forecasts and their recalibrated values (at least 0–30%); a band limit
+  // above that is cut at the top edge rather than shrinking the curve.
+  let top = 0.3;
   for (const point of points) top = Math.max(top, point.forecast, point.calibrated);
-  for (const entry of band) top = Math.max(top, entry.upper);
-  top = Math.min(1, Math.ceil(top * 10 - 1e-9) / 10);
+  top = Math.min(1, Math.ceil(top * 10 + 1 - 1e-9) / 10);
   const x = scaleLinear().domain([0, top]).range([frame.left, frame.right]).clamp(true);
   const y = scaleLinear().domain([0, top]).range([frame.bottom, frame.top]).clamp(true);
 

@@ -41,7 +41,7 @@ export interface EraOddsChartInput {
 }
 
 const MARGINS = { top: 10, right: 20, bottom: 60, left: 150 };
-const ROW = 26;
+const ROW = 32;
 const HEADING = 20;
 
 /**
@@ -50,7 +50,7 @@ const HEADING = 20;
  * interval, coloured by the phase's position (first, middle, last) as on every page; the two eras'
  * average years are khaki lines, solid for the fire-scar era and dashed for the modern record.
  *
- * x runs 0–100% (ticks every 20%). Missing estimates are left out; with none at all the chart
+ * x runs from 0 to the next 10% above the largest estimate or upper limit (at least 50%). Missing estimates are left out; with none at all the chart
  * shows "not enough data".
  *
  * @param input - indices with their phases' two-era odds, the two base rates and era labels.
@@ -75,7 +75,16 @@ export function eraOddsChart(input: Readonly<EraOddsChartInput>, options?: Chart
   const rows = input.indices.reduce((sum, index) => sum + index.phases.length, 0);
   const height = Math.max(160, MARGINS.top + HEADING * input.indices.length + ROW * rows + MARGINS.bottom + legendExtraHeight(entries, options?.width ?? 680));
   const frame = makeFrame(options, { width: 680, height }, (width) => ({ ...MARGINS, bottom: MARGINS.bottom + legendExtraHeight(entries, width) }));
-  const x = scaleLinear().domain([0, 1]).range([frame.left, frame.right]).clamp(true);
+  let top = 0.5;
+  for (const index of input.indices) {
+    for (const phase of index.phases) {
+      for (const interval of [phase.fireScar, phase.modern]) {
+        for (const value of [interval.estimate, interval.upper]) if (isDrawable(value)) top = Math.max(top, value);
+      }
+    }
+  }
+  top = Math.min(1, Math.ceil(top * 10 - 1e-9) / 10);
+  const x = scaleLinear().domain([0, top]).range([frame.left, frame.right]).clamp(true);
   let body = axisBottom(x, frame, { title: "Chance of a high-fire year", ticks: 5, format: ".0%", grid: true });
   for (const [base, dash] of [[input.fireScarBase, undefined], [input.modernBase, "3 2"]] as const) {
     if (isDrawable(base)) body += `<line${attrs({ x1: x(base), x2: x(base), y1: frame.top, y2: frame.bottom, stroke: palette.baseRate, "stroke-width": 1.8, "stroke-dasharray": dash })}/>`;
@@ -91,8 +100,8 @@ export function eraOddsChart(input: Readonly<EraOddsChartInput>, options?: Chart
     cursor += HEADING;
     index.phases.forEach((phase, position) => {
       const colour = phaseColour(position, index.phases.length);
-      const cy = cursor + ROW / 2 - 4;
-      body += svgText(frame.left - 10, cy + 6, phase.label, { "text-anchor": "end" });
+      const cy = cursor + ROW / 2 - 6;
+      body += svgText(frame.left - 10, cy + 3, phase.label, { "text-anchor": "end" });
       if (isDrawable(phase.fireScar.estimate)) {
         drawn += 1;
         body += whisker(phase.fireScar, cy, palette.ink);
@@ -104,7 +113,7 @@ export function eraOddsChart(input: Readonly<EraOddsChartInput>, options?: Chart
         body += `<path${attrs({ class: "era-modern", d: diamond, transform: `translate(${coord(x(phase.modern.estimate))} ${coord(cy + 9)})`, fill: palette.paper, stroke: colour, "stroke-width": 2 })}/>`;
       }
       const label = `${isDrawable(phase.fireScar.estimate) ? formatPercent(phase.fireScar.estimate) : "\u2013"} / ${isDrawable(phase.modern.estimate) ? formatPercent(phase.modern.estimate) : "\u2013"}`;
-      body += svgText(frame.left - 10, cy + 17, label, { "text-anchor": "end", fill: palette.inkMuted, "font-size": 10 });
+      body += svgText(frame.left - 10, cy + 16, `then / now: ${label}`, { "text-anchor": "end", fill: palette.inkMuted, "font-size": 10 });
       cursor += ROW;
     });
   }
