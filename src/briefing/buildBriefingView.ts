@@ -464,13 +464,13 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
       chart: trustSvg(seaChartSvg),
       caption:
         `Mean ${index.name} departure in the years around ${plural(sea.eventYears.length, "high-fire year", "high-fire years")} (lag 0 = the high-fire year); ` +
-        "the limits show how far chance alone goes (random years; settings in Appendix A).",
+        "the shaded envelope shows how far chance alone goes (random years; settings in Appendix A).",
       outsideText:
         !seaAvailable
           ? ""
           : outside.length === 0
-            ? "No lag lies outside its 95% limits."
-            : `Outside the 95% limits: ${outside.join("; ")}.`,
+            ? "No lag lies beyond the 95% chance envelope."
+            : `Beyond the 95% chance envelope: ${outside.join("; ")}.`,
     },
     aggregated: {
       available: aggregatedAvailable,
@@ -869,14 +869,14 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         activityTimeline({
           years: timelineYears,
           threshold: calibration.fireYears.threshold,
-          measureLabel: calibration.fireYears.measure === "fraction" ? "Share of recording sites burned" : "Sites burned",
+          measureLabel: calibration.fireYears.measure === "fraction" ? "Share of sites burned" : "Sites burned",
           calibration: { first: period.first, last: period.last },
         }),
       ),
       caption:
-        `Fire activity per year (${measureWords}) with the high-fire threshold, and the sample depth (sites recording) on the right axis. ` +
+        `Fire activity per year (${measureWords}) as a line, high-fire years as dots, with the high-fire threshold; the strip below is the sample depth (sites recording). ` +
         `High-fire years are chosen only among the calibration years ${period.first}–${period.last} (shaded); years outside it are drawn light grey ` +
-        `and are not used, however active. Years with fewer than ${settings.fireYears.minSitesRecording} recording sites have no bar.`,
+        `and are not used, however active. Years with fewer than ${settings.fireYears.minSitesRecording} recording sites are left out (the line breaks there).`,
     },
     hindcast: {
       available: hindcastAvailable,

@@ -255,7 +255,7 @@ describe("buildBriefingView(inputs)", () => {
   it("keeps superposed-epoch captions plain: the reading and the lags outside the limits, no seed or draw counts", () => {
     const enso = view.indices[0];
     expect(enso?.sea.caption).toBe(
-      "Mean ENSO departure in the years around 30 high-fire years (lag 0 = the high-fire year); the limits show how far chance alone goes (random years; settings in Appendix A).",
+      "Mean ENSO departure in the years around 30 high-fire years (lag 0 = the high-fire year); the shaded envelope shows how far chance alone goes (random years; settings in Appendix A).",
     );
     expect(enso?.sea.outsideText).toContain("lag 0 (+0.62, p = 0.001, q = 0.01)");
     expect(enso?.sea.caption).not.toMatch(/seed|10,000|draws|percentile/i);

@@ -119,7 +119,6 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
   // The high-fire year's own column, tinted and named.
   const zeroLeft = x(-0.5);
   const zeroRight = x(0.5);
-  body += `<rect${attrs({ class: "fire-year-column", x: zeroLeft, y: frame.top, width: zeroRight - zeroLeft, height: frame.bottom - frame.top, fill: palette.fireYearTint })}/>`;
   body += svgText((zeroLeft + zeroRight) / 2, frame.top - 8, "High-fire year", {
     "text-anchor": "middle",
     "font-weight": 600,
@@ -140,6 +139,8 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
       .y1((row) => y(row[key]?.[1] ?? 0))(rows);
     if (band) body += `<path${attrs({ class: name, d: band, fill })}/>`;
   }
+  // The high-fire year's column over the envelopes, translucent so both stay visible.
+  body += `<rect${attrs({ class: "fire-year-column", x: zeroLeft, y: frame.top, width: zeroRight - zeroLeft, height: frame.bottom - frame.top, fill: palette.fireYearTint, "fill-opacity": 0.6 })}/>`;
   body += `<line${attrs({ x1: frame.left, x2: frame.right, y1: y(0), y2: y(0), stroke: palette.inkMuted, "stroke-width": 1 })}/>`;
 
   // Lag axis: signed integer labels, no ticks between lags.
