@@ -41,6 +41,7 @@ export function curveRuleForecasts(
   const read = new Uint8Array(design.folds);
   const index = Int16Array.from(phase.cellIndex);
   const n = design.years.length;
+  const warmed = design.names.map(() => false);
   for (let fold = 0; fold < design.folds; fold += 1) {
     probability[fold] = phase.probability[fold] as number;
     const k = phase.cellIndex[fold] as number;
@@ -53,6 +54,11 @@ export function curveRuleForecasts(
       buffers.linearStart.fill(0);
       buffers.quadraticStart.fill(0);
     }
+    if (!warmed[k]) {
+      // A new fire record: the last fits are not optima of this one, so no warm step from them.
+      buffers.hasPrevious.fill(0);
+      warmed[k] = true;
+    }
     const { x, y } = buffers;
     let m = 0;
     for (let position = 0; position < n; position += 1) {
@@ -63,7 +69,12 @@ export function curveRuleForecasts(
       y[m] = fire[position] as number;
       m += 1;
     }
-    const estimate = readFastResponseCurve(buffers, m, value[design.target[fold] as number] as number);
+    const estimate = readFastResponseCurve(
+      buffers,
+      m,
+      value[design.target[fold] as number] as number,
+      warmStart ? { values: value, fire, start: windowStart, end: windowEnd } : undefined,
+    );
     if (Number.isNaN(estimate)) continue;
     probability[fold] = estimate;
     read[fold] = 1;

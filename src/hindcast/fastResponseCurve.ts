@@ -16,10 +16,38 @@ export interface CurveScratch {
   /** Warm starts: the last linear and quadratic coefficients (a start only; the optimum does not depend on it). */
   readonly linearStart: Float64Array;
   readonly quadraticStart: Float64Array;
+  /** Information matrices at the last fits, and whether each last fit is the optimum of the same fire record. */
+  readonly linearInformation: Float64Array;
+  readonly quadraticInformation: Float64Array;
+  readonly hasPrevious: Uint8Array;
+  /** Left-out window [start, end) of the last fits. */
+  readonly previousWindow: Int32Array;
 }
 
 export function curveScratch(size: number): CurveScratch {
-  return { x: new Float64Array(size), y: new Uint8Array(size), linearStart: new Float64Array(2), quadraticStart: new Float64Array(3) };
+  return {
+    x: new Float64Array(size),
+    y: new Uint8Array(size),
+    linearStart: new Float64Array(2),
+    quadraticStart: new Float64Array(3),
+    linearInformation: new Float64Array(9),
+    quadraticInformation: new Float64Array(9),
+    hasPrevious: new Uint8Array(2),
+    previousWindow: new Int32Array(2),
+  };
+}
+
+/**
+ * The fold being fitted, for the warm step: the index values and fire outcome by position, and the fold's
+ * left-out window. With it, a fit that follows an earlier fit of the same index and fire record starts with one
+ * Newton step computed only from the years that entered and left the left-in set (the earlier fit's score is
+ * zero at its optimum, so the new score and information differ only by those years).
+ */
+export interface CurveFold {
+  readonly values: Float64Array;
+  readonly fire: Uint8Array;
+  readonly start: number;
+  readonly end: number;
 }
 
 /**
@@ -38,8 +66,13 @@ export function curveScratch(size: number): CurveScratch {
  * @returns the fitted probability at the value clamped to the cases' range, or NaN when no curve can be
  *   fitted (fitResponseCurve gives null).
  */
-export function readFastResponseCurve(scratch: CurveScratch, m: number, value: number): number {
+export function readFastResponseCurve(scratch: CurveScratch, m: number, value: number, fold?: CurveFold): number {
   const { x, y } = scratch;
+  const previous = scratch.hasPrevious;
+  const hadLinear = previous[0] === 1;
+  const hadQuadratic = previous[1] === 1;
+  previous[0] = 0;
+  previous[1] = 0;
   if (m === 0) return Number.NaN;
   let events = 0;
   let min = Infinity;
@@ -78,19 +111,32 @@ export function readFastResponseCurve(scratch: CurveScratch, m: number, value: n
   if (events === 0 || events === m || !(max > min)) return Number.NaN;
   const separated = otherMax <= eventMin || eventMax <= otherMin;
   if (separated || relativeRemainder(x, m, 2) < RANK_MARGIN) return slowReading(scratch, m, value);
+  if (fold !== undefined && hadLinear) warmStep(scratch, fold, 2);
   const linear = newton(x, y, m, 2, scratch.linearStart);
   if (linear === null) return slowReading(scratch, m, value);
+  scratch.linearInformation.set(information);
   let useQuadratic = false;
   const rarer = Math.min(events, m - events);
   if (rarer >= QUADRATIC_MIN_RARER && distinct >= 3) {
     if (relativeRemainder(x, m, 3) < RANK_MARGIN) return slowReading(scratch, m, value);
+    if (fold !== undefined && hadQuadratic) warmStep(scratch, fold, 3);
     const quadratic = newton(x, y, m, 3, scratch.quadraticStart);
     if (quadratic === null) return slowReading(scratch, m, value);
+    scratch.quadraticInformation.set(information);
+    previous[1] = 1;
     const likelihoodRatio = Math.max(0, 2 * (quadratic - linear));
     const pValue = chiSquareUpperTail(likelihoodRatio, 1);
     const linearAic = -2 * linear + 2 * 2;
     const quadraticAic = -2 * quadratic + 2 * 3;
     useQuadratic = pValue < 0.05 && quadraticAic < linearAic;
+  }
+  previous[0] = 1;
+  if (fold !== undefined) {
+    scratch.previousWindow[0] = fold.start;
+    scratch.previousWindow[1] = fold.end;
+  } else {
+    previous[0] = 0;
+    previous[1] = 0;
   }
   const readAt = value > max ? max : value < min ? min : value;
   const c = useQuadratic ? scratch.quadraticStart : scratch.linearStart;
@@ -99,6 +145,54 @@ export function readFastResponseCurve(scratch: CurveScratch, m: number, value: n
   logit += (c[1] as number) * readAt;
   if (useQuadratic) logit += (c[2] as number) * (readAt * readAt);
   return logit >= 0 ? 1 / (1 + Math.exp(-logit)) : Math.exp(logit) / (1 + Math.exp(logit));
+}
+
+/**
+ * One Newton step from the last fit's optimum to this fold's, from the years that entered (left out before, in
+ * now) and left (in before, left out now) only; skipped when it would be large (the ordinary iteration follows
+ * either way and decides convergence).
+ */
+function warmStep(scratch: CurveScratch, fold: CurveFold, size: 2 | 3): void {
+  const b = size === 2 ? scratch.linearStart : scratch.quadraticStart;
+  const previousInformation = size === 2 ? scratch.linearInformation : scratch.quadraticInformation;
+  const previousStart = scratch.previousWindow[0] as number;
+  const previousEnd = scratch.previousWindow[1] as number;
+  information.set(previousInformation);
+  score.fill(0);
+  const c0 = b[0] as number;
+  const c1 = b[1] as number;
+  const c2 = size === 3 ? (b[2] as number) : 0;
+  const add = (position: number, sign: number) => {
+    const v = fold.values[position] as number;
+    if (Number.isNaN(v)) return;
+    const v2 = v * v;
+    const linear = c0 + c1 * v + c2 * v2;
+    const e = Math.exp(-Math.abs(linear));
+    const inverse = 1 / (1 + e);
+    const outcome = fold.fire[position] as number;
+    const residual = linear >= 0 ? (outcome === 1 ? e * inverse : -inverse) : outcome === 1 ? inverse : -e * inverse;
+    const weight = sign * e * inverse * inverse;
+    score[0] = (score[0] as number) + sign * residual;
+    score[1] = (score[1] as number) + sign * residual * v;
+    information[0] = (information[0] as number) + weight;
+    information[1] = (information[1] as number) + weight * v;
+    information[4] = (information[4] as number) + weight * v2;
+    if (size === 3) {
+      score[2] = (score[2] as number) + sign * residual * v2;
+      information[2] = (information[2] as number) + weight * v2;
+      information[5] = (information[5] as number) + weight * v2 * v;
+      information[8] = (information[8] as number) + weight * v2 * v2;
+    }
+  };
+  for (let position = previousStart; position < previousEnd; position += 1) if (position < fold.start || position >= fold.end) add(position, 1);
+  for (let position = fold.start; position < fold.end; position += 1) if (position < previousStart || position >= previousEnd) add(position, -1);
+  const step = solve(size);
+  if (step === null) return;
+  const largest = Math.max(Math.abs(step[0] as number), Math.abs(step[1] as number), size === 3 ? Math.abs(step[2] as number) : 0);
+  if (!(largest < 0.5)) return;
+  b[0] = c0 + (step[0] as number);
+  b[1] = c1 + (step[1] as number);
+  if (size === 3) b[2] = c2 + (step[2] as number);
 }
 
 function slowReading(scratch: CurveScratch, m: number, value: number): number {

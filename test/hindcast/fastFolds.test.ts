@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { curveRuleForecasts } from "../../src/hindcast/curveRuleForecasts.js";
+import { curveScratch } from "../../src/hindcast/fastResponseCurve.js";
 import { fixedEvent } from "../../src/hindcast/fixedEvent.js";
 import { hindcastDesign } from "../../src/hindcast/hindcastDesign.js";
 import { BASIS, phaseRuleForecasts } from "../../src/hindcast/phaseRuleForecasts.js";
@@ -56,7 +57,7 @@ function trickyInput(seed: number): HindcastInput {
 }
 
 describe("phaseRuleForecasts(design, fire, category, settings) and curveRuleForecasts", () => {
-  it("agree exactly with the outlook's own functions rebuilt fold by fold (buildTrainingSet, rankIndicesByAssociation, forecastCell, curveForecast) on 40 tie-heavy invented regions", () => {
+  it("agree with the outlook's own functions rebuilt fold by fold (buildTrainingSet, rankIndicesByAssociation, forecastCell, curveForecast) on 40 tie-heavy invented regions: the phase rule exactly, the curve rule to 1e-9 (cold and warm starts)", () => {
     let folds = 0;
     const bases = new Set<string>();
     for (let seed = 1; seed <= 40; seed += 1) {
@@ -65,6 +66,10 @@ describe("phaseRuleForecasts(design, fire, category, settings) and curveRuleFore
       const event = fixedEvent(design.years, input.activity, input.top, input.measure);
       const fast = phaseRuleForecasts(design, event.fire, event.category, input);
       const curve = curveRuleForecasts(design, event.fire, fast);
+      // The permutation test's path: warm starts and warm steps from the previous fold's fit.
+      const scratch = design.names.map(() => curveScratch(design.years.length));
+      curveRuleForecasts(design, event.fire, fast, scratch, true);
+      const warm = curveRuleForecasts(design, event.fire, fast, scratch, true);
       const slow = slowHindcast(input);
       expect(design.folds).toBe(slow.length);
       slow.forEach((fold, f) => {
@@ -75,6 +80,7 @@ describe("phaseRuleForecasts(design, fire, category, settings) and curveRuleFore
         expect(BASIS[fast.basis[f] as number]).toBe(fold.basis);
         expect(Math.abs((curve.probability[f] as number) - fold.curveProbability)).toBeLessThan(1e-9);
         expect(curve.read[f] === 1).toBe(fold.curveRead);
+        expect(Math.abs((warm.probability[f] as number) - fold.curveProbability)).toBeLessThan(1e-9);
         bases.add(fold.basis);
         folds += 1;
       });
