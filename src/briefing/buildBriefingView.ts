@@ -700,7 +700,10 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     },
     { label: "Interval for a proportion", value: calibration.interval === "wilson" ? "Wilson score, 95%, no continuity correction" : "Jeffreys, 95% equal-tailed" },
     { label: "Small-sample flag", value: `a phase with fewer than ${methods.smallSampleYears} calibration years` },
-    { label: "Near-boundary margin", value: `${formatDecimal(methods.nearBoundaryMargin, 2)} index units` },
+    { label: "Near-boundary margin", value: `${formatDecimal(methods.nearBoundarySd, 2)} of each index's standard deviation either side of a cut` },
+    { label: "Headline rule", value: methods.response === "curve" ? "response curve of the selected index, read at this season's value (the phase odds beside it)" : "phase odds of the selected index or joint phase (the response curve beside it)" },
+    { label: "Chance test and intervals", value: `${formatCount(methods.permutations)} block shuffles of the fire record; ${formatCount(methods.bootstrapResamples)} moving-block bootstrap resamples; blocks of ${methods.blockYears} years` },
+    { label: "Modern record high-fire years", value: `top ${topPercent}% of modern years by ${methods.modernMeasure === "area" ? "area burned" : "number of fires"}` },
     { label: "Superposed epoch analysis", value: `lags ${signed(methods.seaFirstLag, 0)} to ${signed(methods.seaLastLag, 0)} years; ${formatCount(methods.seaDraws)} random draws` },
     ...(firstSea === undefined
       ? []
@@ -779,7 +782,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         const units = indexSettings?.units ?? null;
         const provisional = extra.provisional === true;
         const months = extra.months ?? [];
-        const margin = isFiniteNumber(extra.nearBoundaryMargin) ? extra.nearBoundaryMargin : methods.nearBoundaryMargin;
+        const margin = isFiniteNumber(extra.nearBoundaryMargin) ? extra.nearBoundaryMargin : Number.NaN;
         return {
           index: phase.index,
           value: formatNumber(phase.value, 2),
@@ -794,7 +797,11 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
             : months.length === 0
               ? "provisional: the season's months are not all in yet"
               : `${plural(months.length, "month", "months")} so far (${months[0]}${months.length > 1 ? ` to ${months[months.length - 1]}` : ""})`,
-          note: phase.nearBoundary ? `within ${formatNumber(margin, 2)} of a cut: a small change would change the phase` : "",
+          note: phase.nearBoundary
+            ? isFiniteNumber(margin)
+              ? `within ${formatNumber(margin, 2)} of a cut (${formatDecimal(methods.nearBoundarySd, 2)} SD): a small change would change the phase`
+              : "near a cut: a small change would change the phase"
+            : "",
         };
       }),
       missingText: outlook.missing.length === 0 ? null : `No value for this season, left out: ${outlook.missing.join(", ")}.`,
@@ -917,7 +924,12 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
           value:
             skill.rocArea === null
               ? NOT_ENOUGH_DATA
-              : `${formatDecimal(skill.rocArea, 2)}` + (skill.rocStandardError === null ? "" : ` (standard error ${formatDecimal(skill.rocStandardError, 3)})`),
+              : `${formatDecimal(skill.rocArea, 2)}` +
+                (skill.intervals?.rocArea !== null && skill.intervals?.rocArea !== undefined
+                  ? ` (95% block-bootstrap interval ${formatDecimal(skill.intervals.rocArea[0], 2)}–${formatDecimal(skill.intervals.rocArea[1], 2)})`
+                  : skill.rocStandardError === null
+                    ? ""
+                    : ` (standard error ${formatDecimal(skill.rocStandardError, 3)}, assuming independent years)`),
           meaning: "0.5: no better than chance at telling high-fire years from others; 1: perfect",
         },
         { score: "Years tested", value: formatCount(skill.years), meaning: `each left out with ${skill.exclusion} years either side` },

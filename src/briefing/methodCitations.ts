@@ -84,7 +84,7 @@ export const METHOD_CITATIONS: readonly MethodCitation[] = Object.freeze([
   },
   {
     method: "Brier score and Brier skill score",
-    use: "hindcast accuracy of the fire-year chance against the average-year chance",
+    use: "hindcast accuracy of the high-fire-year chance against the average-year forecast",
     citation: "Brier G.W. (1950) \u201cVerification of forecasts expressed in terms of probability\u201d, Monthly Weather Review 78(1):1\u20133.",
   },
   {

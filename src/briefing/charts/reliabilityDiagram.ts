@@ -124,5 +124,5 @@ export function reliabilityDiagram(input: Readonly<ReliabilityDiagramInput>, opt
   if (bins.length === 0) body += notEnoughData(frame);
 
   body += legend(entries, frame, frame.bottom + 52);
-  return `${svgOpen(frame, "Reliability of the hindcast fire-year probabilities")}${body}</svg>`;
+  return `${svgOpen(frame, "Reliability of the hindcast high-fire-year probabilities")}${body}</svg>`;
 }

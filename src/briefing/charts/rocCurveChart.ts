@@ -103,5 +103,5 @@ export function rocCurveChart(input: Readonly<RocCurveChartInput>, options?: Cha
     fill: palette.estimate,
   });
   body += legend(entries, frame, frame.bottom + 52);
-  return `${svgOpen(frame, "ROC curve of the hindcast fire-year probabilities")}${body}</svg>`;
+  return `${svgOpen(frame, "ROC curve of the hindcast high-fire-year probabilities")}${body}</svg>`;
 }
