@@ -247,6 +247,12 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       }
       await outputChecked(() => checkOutputTargets([...targets, keptTarget], { replace: true }));
     }
+    // A browser that has already failed to start ends the run now, not after the computation.
+    if (launched !== null) {
+      await Promise.race([launched.then(() => undefined), new Promise<void>((resolveNow) => setImmediate(resolveNow))]).catch((error: unknown) => {
+        throw error instanceof BrowserNotFoundError ? new UsageError(error.message) : error;
+      });
+    }
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
     const outlook = buildOutlook(workspace, calibration, request);
     const safetyPath = context.safetyPath ?? PACKAGE_SAFETY_PATH;
