@@ -114,8 +114,14 @@ describe("firephase brief <region> <region> <region> (one browser, an overview)"
     const inThread = join(work, "out");
     const threaded = join(work, "out-threads");
     mkdirSync(threaded);
-    const run = runBuilt(["brief", north, bad, south, "--out-dir", threaded, "--no-keep", "--issued", ISSUED, "--values", values[0] as string], { FIREPHASE_THREADS: "2" });
+    // Without --no-keep: each region keeps its outlook in its own issued/ folder, as `brief <region>` does.
+    const run = runBuilt(["brief", north, bad, south, "--out-dir", threaded, "--issued", ISSUED, "--values", values[0] as string], { FIREPHASE_THREADS: "2" });
     expect(run.code).toBe(1);
+    for (const folder of [north, south]) {
+      const kept = JSON.parse(readFileSync(join(folder, "issued", "2027-2027-03-10.json"), "utf8")) as { schema: string; issued: string };
+      expect([kept.schema, kept.issued]).toEqual(["firephase.outlook/1", ISSUED]);
+    }
+    expect(readdirSync(bad)).not.toContain("issued");
     expect(readdirSync(threaded).sort()).toEqual(readdirSync(inThread).sort());
     const names = overviewNames(2027, ISSUED);
     const withoutPdf = (folder: string): string[][] => parseCsv(readFileSync(join(folder, names.csv), "utf8")).map((row) => row.filter((_, i) => i !== 15));
