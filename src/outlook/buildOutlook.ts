@@ -93,7 +93,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     if (provisional) {
       warnings.push({
         code: "value-provisional",
-        message: `${index.name} = ${formatValue(value)} is provisional: computed from ${months.length === 0 ? "part" : months.join(", ")} of its ${window ?? "season"} window, which is not complete yet; the odds may change when it is`,
+        message: `${index.name} = ${formatValue(value)} is provisional: computed from ${months.length === 0 ? "part" : monthSpan(months)} of its ${window ?? "season"} window, which is not complete yet; the odds may change when it is`,
       });
     }
     const margin = nearBoundaryMargin(index.sd);
@@ -389,4 +389,17 @@ function indexWindow(indices: readonly IndexSettings[], name: string): string | 
 /** A margin in index units, to two significant digits. */
 function formatMargin(margin: number): string {
   return Number(margin.toPrecision(2)).toString();
+}
+
+const MONTH_NAMES = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"] as const;
+
+/** "2026-12", "2027-01", "2027-02" → "Dec 2026–Feb 2027" (first and last of the months used, in words). */
+function monthSpan(months: readonly string[]): string {
+  const label = (text: string): string => {
+    const [year, month] = text.split("-");
+    return `${MONTH_NAMES[Number(month) - 1] ?? month} ${year}`;
+  };
+  const first = months[0] as string;
+  const last = months[months.length - 1] as string;
+  return first === last ? label(first) : `${label(first)}–${label(last)}`;
 }

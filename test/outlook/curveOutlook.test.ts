@@ -78,7 +78,7 @@ describe("buildOutlook — current values: sources, details, near-boundary margi
     expect(a).toEqual(expect.objectContaining({ source: "indices.csv, Dec 2026–Feb 2027", window: "Dec-Mar", months: ["2026-12", "2027-01", "2027-02"], provisional: true }));
     expect(b).toEqual(expect.objectContaining({ source: "--values", window: null, months: [], provisional: false }));
     const warning = outlook.warnings.find((candidate) => candidate.code === "value-provisional");
-    expect(warning?.message).toMatch(/^A = 1.2 is provisional: computed from 2026-12, 2027-01, 2027-02 of its Dec-Mar window/);
+    expect(warning?.message).toMatch(/^A = 1.2 is provisional: computed from Dec 2026–Feb 2027 of its Dec-Mar window/);
     const json = toOutlookJson(outlook) as Record<string, any>;
     expect(json.current[0]).toEqual(expect.objectContaining({ provisional: true, months: ["2026-12", "2027-01", "2027-02"], source: "indices.csv, Dec 2026–Feb 2027" }));
   });
