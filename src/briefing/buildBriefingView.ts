@@ -854,7 +854,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         activity:
           calibration.fireYears.measure === "fraction" ? `${Math.round(analog.activity * 100)}% of sites` : plural(analog.activity, "site", "sites"),
         values: analogNames.map((name) => {
-          const value = analog.values[name];
+          const value = Object.hasOwn(analog.values, name) ? analog.values[name] : undefined;
           return value === undefined ? "–" : formatDecimal(value, 2);
         }),
       })),

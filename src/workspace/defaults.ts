@@ -17,7 +17,6 @@ export const DEFAULT_METHODS: MethodSettings = Object.freeze({
   jointMinYears: 10,
   jointMaxQ: 0.05,
   nearBoundarySd: 0.1,
-  nearBoundaryMargin: 0.1,
   response: "phase",
   modernMeasure: "area",
   permutations: 999,

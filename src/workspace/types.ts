@@ -32,11 +32,6 @@ export interface MethodSettings {
    * standard deviation over the calibration years (default 0.1, so 0.1 SD; 0 to 10).
    */
   readonly nearBoundarySd: number;
-  /**
-   * @deprecated Not a region.json key any more (`nearBoundarySd` replaced it); kept in the type only
-   * until the outlook and briefing read `nearBoundarySd`. Always 0.1 (index units).
-   */
-  readonly nearBoundaryMargin: number;
   /** How an index is related to the fire-year odds: by phase (default) or by a logistic response curve. */
   readonly response: "phase" | "curve";
   /** Measure of the modern (agency) fire record used for its fire years: burned area (default) or number of fires. */

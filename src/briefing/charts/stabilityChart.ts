@@ -94,8 +94,8 @@ export function stabilityChart(input: Readonly<StabilityChartInput>, options?: C
     .map((window) => ({ middle: (window.first + window.last) / 2, window }))
     .sort((a, b) => a.middle - b.middle);
   const middles = windows.map((entry) => entry.middle);
-  const low = middles.length > 0 ? Math.min(...middles) : 0;
-  const high = middles.length > 0 ? Math.max(...middles) : 100;
+  const low = middles.length > 0 ? middles.reduce((least, middle) => Math.min(least, middle), Infinity) : 0;
+  const high = middles.length > 0 ? middles.reduce((most, middle) => Math.max(most, middle), -Infinity) : 100;
   const x = scaleLinear()
     .domain(high - low < 1 ? [low - 10, high + 10] : [low, high])
     .range([frame.left + 8, frame.right - 8]);

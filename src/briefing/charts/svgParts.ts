@@ -100,8 +100,13 @@ export function makeFrame(
  */
 export function paddedExtent(values: readonly number[], padShare: number): [number, number] {
   if (values.length === 0) return [-1, 1];
-  const low = Math.min(...values);
-  const high = Math.max(...values);
+  // A loop, not Math.min(...values): a spread of a long record overflows the call stack.
+  let low = Infinity;
+  let high = -Infinity;
+  for (const value of values) {
+    if (value < low) low = value;
+    if (value > high) high = value;
+  }
   const spread = high - low;
   if (!(spread > 1e-9 * Math.max(1, Math.abs(low), Math.abs(high)))) {
     const middle = (low + high) / 2;
