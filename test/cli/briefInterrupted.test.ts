@@ -130,7 +130,9 @@ describe("an interrupted `firephase brief` leaves no browser and no profile fold
       // Finished before the signal (0), cleaned up and exited 128 + n, or ended by the signal before any browser existed.
       const endedBySignal = run.code === null && run.signal === signal;
       expect(run.code === 0 || run.code === EXIT_CODES[signal] || endedBySignal, `run ${position}: code ${run.code}, signal ${run.signal}`).toBe(true);
-      if (run.browserAtKill) expect(run.code, `run ${position}: interrupted with a browser running`).toBe(EXIT_CODES[signal]);
+      // With a browser running the handler cleans up and exits 128 + n (unless the browser was closing
+      // and the handlers went away between the look at /proc and the signal: then the signal ends it).
+      if (run.browserAtKill) expect(run.code === EXIT_CODES[signal] || endedBySignal, `run ${position}: interrupted with a browser running, code ${run.code}`).toBe(true);
     }
     // The test means something only if several interrupts caught a browser running.
     expect(runs.filter((run) => run.browserAtKill).length).toBeGreaterThanOrEqual(3);
