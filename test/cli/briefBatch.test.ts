@@ -163,3 +163,27 @@ describe("firephase outlook <region> <region> (JSON Lines)", () => {
     expect(run.stderr).toContain("2 of 3 regions have an outlook; 1 failed");
   });
 });
+
+describe("firephase brief <region> --browser <not a browser>", () => {
+  it("exits 2 naming the browser tried and how to choose another, with no third-party link and no file written", async () => {
+    const script = join(work, "not-a-browser.sh");
+    writeFileSync(script, '#!/bin/sh\necho "usage: thing [options]" >&2\nexit 3\n', { mode: 0o755 });
+    for (const [browser, reason] of [
+      ["/bin/false", "it exited with code 1 before it was ready"],
+      [script, 'it exited with code 3 before it was ready, saying "usage: thing [options]"'],
+      [join(work, "no-such-browser"), "no such file"],
+    ] as const) {
+      const out = join(work, "single-false.pdf");
+      const run = await runInProcess(["brief", north, "--browser", browser, "--no-keep", "--issued", ISSUED, "--out", out]);
+      expect(run.code, browser).toBe(2);
+      expect(run.stderr).toContain(`firephase: could not start the browser ${browser} (${reason}): choose another with --browser PATH or FIREPHASE_BROWSER`);
+      expect(run.stderr).not.toMatch(/https?:\/\/|internal error/);
+      expect(readdirSync(work)).not.toContain("single-false.pdf");
+    }
+    const fromEnv = await runInProcess(["brief", north, "--no-keep", "--issued", ISSUED, "--out", join(work, "env.pdf")], { FIREPHASE_BROWSER: "/bin/false" });
+    expect(fromEnv.code).toBe(2);
+    expect(fromEnv.stderr).toContain(
+      "firephase: could not start the browser /bin/false (named by FIREPHASE_BROWSER; it exited with code 1 before it was ready): choose another with --browser PATH or FIREPHASE_BROWSER",
+    );
+  }, 60_000);
+});
