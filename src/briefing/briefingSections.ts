@@ -106,10 +106,12 @@ export function hindcastExtras(skill: Skill, calibration: Calibration): Hindcast
           missingText: null,
         };
 
-  const curveRule = skill.curveRule;
+  // The issued rule leads `skill`; the other rule stands beside it (curveRule, or phaseRule when the curve is issued).
+  const phaseSkill = skill.phaseRule ?? skill;
+  const curveRule = skill.phaseRule !== null && skill.phaseRule !== undefined ? skill : skill.curveRule;
   let rules: HindcastExtras["rules"] = null;
   if (curveRule !== null && curveRule !== undefined) {
-    const row = (score: string, pick: (rule: Skill) => string): RuleSkillRow => ({ score, phase: pick(skill), curve: pick(curveRule) });
+    const row = (score: string, pick: (rule: Skill) => string): RuleSkillRow => ({ score, phase: pick(phaseSkill), curve: pick(curveRule) });
     const bss = (rule: Skill) => signed(rule.brierSkillScore, 2);
     const rows = [
       row("Brier skill score", bss),
@@ -118,7 +120,7 @@ export function hindcastExtras(skill: Skill, calibration: Calibration): Hindcast
       row("Permutation p", (rule) => (isFiniteNumber(rule.skillPValue) ? formatPValue(rule.skillPValue) : missing(rule.skillPValueReason))),
       row("Verdict", (rule) => (rule.hasSkill ? "some skill" : "no skill shown")),
     ];
-    const a = skill.brierSkillScore;
+    const a = phaseSkill.brierSkillScore;
     const b = curveRule.brierSkillScore;
     const sentence =
       isFiniteNumber(a) && isFiniteNumber(b)

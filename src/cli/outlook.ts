@@ -110,12 +110,37 @@ export function formatOutlook(outlook: Outlook): string {
   out.push("");
   out.push(
     `Hindcast (${skill.years} years, each left out with ${skill.exclusion} years either side): ` +
-      `Brier skill score ${fixed(skill.brierSkillScore, 3)}, RPSS ${fixed(skill.rpss, 3)}, ROC area ${fixed(skill.rocArea, 3)} (standard error ${fixed(skill.rocStandardError, 3)})` +
+      `Brier skill score ${fixed(skill.brierSkillScore, 3)}${interval(skill.intervals?.brierSkillScore)}, ` +
+      `RPSS ${fixed(skill.rpss, 3)}${interval(skill.intervals?.rpss)}, ROC area ${fixed(skill.rocArea, 3)}${interval(skill.intervals?.rocArea)}` +
       (skill.reason !== undefined ? ` — not enough data: ${skill.reason}` : ""),
   );
+  if (skill.intervals !== null && skill.intervals !== undefined) {
+    out.push(`  [95% moving-block bootstrap intervals: ${skill.intervals.resamples} resamples in blocks of ${skill.intervals.blockYears} years]`);
+  }
+  if (skill.skillPValue !== undefined) {
+    out.push(
+      skill.skillPValue === null
+        ? `  chance test: not enough data${skill.skillPValueReason === undefined ? "" : ` (${skill.skillPValueReason})`}`
+        : `  chance test: ${skill.permutations ?? "?"} block-shuffled fire records; share scoring at least as well, p = ${fixed(skill.skillPValue, 3)}`,
+    );
+  }
+  const other = skill.phaseRule ?? skill.curveRule;
+  if (other !== null && other !== undefined) {
+    const name = skill.phaseRule !== null && skill.phaseRule !== undefined ? "phase rule (not issued)" : "curve rule (not issued)";
+    out.push(
+      `  ${name}: Brier skill score ${fixed(other.brierSkillScore, 3)}${interval(other.intervals?.brierSkillScore)}, ROC area ${fixed(other.rocArea, 3)}` +
+        (other.skillPValue === null || other.skillPValue === undefined ? "" : `, p = ${fixed(other.skillPValue, 3)} (${other.permutations ?? "?"} shuffles)`) +
+        ` — ${other.hasSkill ? "some skill" : "no skill shown"}`,
+    );
+  }
   out.push(`  rule: ${skill.rule}`);
   out.push("");
   out.push("Caution: a statistical long-range outlook. It does not replace official agency outlooks, fire-danger ratings,");
   out.push("local codes or the direction of qualified fire personnel, and must never be used for tactical or evacuation decisions.");
   return `${out.join("\n")}\n`;
+}
+
+/** " [lo, hi]" of a bootstrap interval, or "" when there is none. */
+function interval(bounds: readonly [number, number] | null | undefined): string {
+  return bounds === null || bounds === undefined ? "" : ` [${fixed(bounds[0], 3)}, ${fixed(bounds[1], 3)}]`;
 }

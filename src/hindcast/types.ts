@@ -75,6 +75,13 @@ export interface Skill {
   readonly corpReason?: string;
   /** The curve rule's hindcast in the same folds (issue 11); null (with curveRuleReason) when not run. */
   readonly curveRule?: Skill | null;
+  /**
+   * Which rule these scores verify: the one the outlook issued (`methods.response`). When the curve
+   * rule is issued, the Skill is the curve rule's and `phaseRule` holds the phase rule's beside it.
+   */
+  readonly issuedRule?: "phase" | "curve";
+  /** The phase rule's hindcast, present when the curve rule is the issued one. */
+  readonly phaseRule?: Skill | null;
   readonly curveRuleReason?: string;
   /** Why `intervals` is null. */
   readonly intervalsReason?: string;

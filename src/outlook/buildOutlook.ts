@@ -7,6 +7,7 @@ import { proportionEstimate } from "../calibrate/proportionEstimate.js";
 import type { AssociationRank } from "../calibrate/rankIndicesByAssociation.js";
 import type { Calibration } from "../calibrate/types.js";
 import { runHindcast } from "../hindcast/runHindcast.js";
+import type { Skill } from "../hindcast/types.js";
 import type { IndexSettings, Workspace } from "../workspace/types.js";
 import { analogYears } from "./analogYears.js";
 import { comparedWithBase, formatPercent, formatPercentRange } from "./describeChance.js";
@@ -355,14 +356,21 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     jointMaxQ: settings.methods.jointMaxQ,
     ...hindcastSettings,
   });
+  // The hindcast verifies the rule the outlook issued: with the curve headline, the curve rule's
+  // scores and verdict lead and the phase rule's stand beside them (and the other way round).
+  const { curveRule, ...phaseRuleSkill } = computedSkill;
+  const issuedSkill: Skill =
+    curveHeadline && curveRule !== null && curveRule !== undefined
+      ? { ...curveRule, issuedRule: "curve", phaseRule: phaseRuleSkill, curveRule: null, curveRuleReason: "this is the curve rule; the phase rule is under phaseRule" }
+      : { ...computedSkill, issuedRule: "phase" };
   const hindcast =
     currentPhase.size === 0
       ? {
-          ...computedSkill,
+          ...issuedSkill,
           verdict:
             "No current index values were given, so these are the long-term average odds; a skill score does not apply to them.",
         }
-      : computedSkill;
+      : issuedSkill;
 
   return {
     issued: request.issued,

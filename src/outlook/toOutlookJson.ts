@@ -69,6 +69,8 @@ function skillJson(skill: Skill): Record<string, unknown> {
     ...(skill.reason === undefined ? {} : { reason: skill.reason }),
     ...(skill.curveRule === undefined ? {} : { curveRule: skill.curveRule === null ? null : skillJson(skill.curveRule) }),
     ...(skill.curveRuleReason === undefined ? {} : { curveRuleReason: skill.curveRuleReason }),
+    ...(skill.issuedRule === undefined ? {} : { issuedRule: skill.issuedRule }),
+    ...(skill.phaseRule === undefined ? {} : { phaseRule: skill.phaseRule === null ? null : skillJson(skill.phaseRule) }),
     forecasts: skill.forecasts,
   };
 }

@@ -48,6 +48,17 @@ describe("buildOutlook with methods.response 'curve' on a planted dose-response 
     expect(far.fireYear.estimate).toBe(atMax.fireYear.estimate);
   });
 
+  it("the hindcast verifies the issued rule: with the curve headline it is the curve rule's, the phase rule's beside it", () => {
+    expect(strong.hindcast.issuedRule).toBe("curve");
+    expect(strong.hindcast.phaseRule).toBeDefined();
+    expect(strong.hindcast.phaseRule!.forecasts.some((forecast) => forecast.basis === "curve")).toBe(false);
+    expect(strong.hindcast.forecasts.some((forecast) => forecast.basis === "curve")).toBe(true);
+    expect(strong.hindcast.curveRule).toBeNull();
+    const json = toOutlookJson(strong) as Record<string, any>;
+    expect(json.hindcast.issuedRule).toBe("curve");
+    expect(json.hindcast.phaseRule.brierSkillScore).toBe(strong.hindcast.phaseRule!.brierSkillScore);
+  });
+
   it("with response 'phase' the headline is the phase cell and the curve odds stay beside it", () => {
     const phaseWorkspace = syntheticWorkspace({ effect: 1.6, seed: 11, methods: { ...QUICK, response: "phase" } });
     const phase = outlookOf(phaseWorkspace, { values: { A: 2.0, B: 0 } });
@@ -58,6 +69,8 @@ describe("buildOutlook with methods.response 'curve' on a planted dose-response 
     expect(json.fireYear).toEqual(expect.objectContaining({ estimate: expect.any(Number), lower: expect.any(Number), upper: expect.any(Number), basis: expect.any(String) }));
     expect(json.fireYear.phaseOdds).toEqual(expect.objectContaining({ estimate: expect.any(Number), years: expect.any(Number) }));
     expect(json.fireYear.curveOdds).toEqual(expect.objectContaining({ index: "A", estimate: expect.any(Number), beyondRange: null }));
+    expect(phase.hindcast.issuedRule).toBe("phase");
+    expect(phase.hindcast.curveRule?.forecasts.some((forecast) => forecast.basis === "curve")).toBe(true);
   });
 });
 
