@@ -156,7 +156,11 @@ function wholeProcess(args, cwd) {
   const ms = performance.now() - start;
   if (run.status !== 0) throw new Error(`bench: ${args.join(" ")} exited with ${run.status}:\n${run.stderr}`);
   const rss = /Maximum resident set size \(kbytes\): (\d+)/.exec(run.stderr ?? "");
-  return { ms, mb: rss === null ? null : Number(rss[1]) / 1024 };
+  const user = /User time \(seconds\): ([\d.]+)/.exec(run.stderr ?? "");
+  const system = /System time \(seconds\): ([\d.]+)/.exec(run.stderr ?? "");
+  // CPU time (user + system) is steadier than wall time on a busy machine; it is shown beside it.
+  const cpuMs = user === null || system === null ? null : (Number(user[1]) + Number(system[1])) * 1000;
+  return { ms, mb: rss === null ? null : Number(rss[1]) / 1024, cpuMs };
 }
 
 /** Alternating pairs of whole processes (A B, B A, …); medians of each side and of the per-pair ratio B ÷ A. */
@@ -166,6 +170,7 @@ function pairs(labelA, runA, labelB, runB, count) {
   const a = [];
   const b = [];
   const ratios = [];
+  const cpuRatios = [];
   for (let i = 0; i < count; i++) {
     const [first, second] = i % 2 === 0 ? [runA, runB] : [runB, runA];
     const one = first();
@@ -174,14 +179,16 @@ function pairs(labelA, runA, labelB, runB, count) {
     a.push(x);
     b.push(y);
     ratios.push(y.ms / x.ms);
+    if (x.cpuMs !== null && y.cpuMs !== null && x.cpuMs > 0) cpuRatios.push(y.cpuMs / x.cpuMs);
   }
   const side = (label, runs) => {
     const mbs = runs.map((run) => run.mb).filter((mb) => mb !== null);
-    const result = { label, median: median(runs.map((run) => run.ms)), min: Math.min(...runs.map((run) => run.ms)), max: Math.max(...runs.map((run) => run.ms)), mb: mbs.length === 0 ? null : median(mbs) };
-    console.log(`${label.padEnd(52)} median ${result.median.toFixed(0).padStart(6)} ms  (min ${result.min.toFixed(0)}, max ${result.max.toFixed(0)}${result.mb === null ? "" : `, peak ${result.mb.toFixed(0)} MB`})`);
+    const cpus = runs.map((run) => run.cpuMs).filter((cpu) => cpu !== null);
+    const result = { label, median: median(runs.map((run) => run.ms)), min: Math.min(...runs.map((run) => run.ms)), max: Math.max(...runs.map((run) => run.ms)), mb: mbs.length === 0 ? null : median(mbs), cpu: cpus.length === 0 ? null : median(cpus) };
+    console.log(`${label.padEnd(52)} median ${result.median.toFixed(0).padStart(6)} ms  (min ${result.min.toFixed(0)}, max ${result.max.toFixed(0)}${result.mb === null ? "" : `, peak ${result.mb.toFixed(0)} MB`}${result.cpu === null ? "" : `, CPU ${result.cpu.toFixed(0)} ms`})`);
     return result;
   };
-  return { a: side(labelA, a), b: side(labelB, b), ratio: median(ratios) };
+  return { a: side(labelA, a), b: side(labelB, b), ratio: median(ratios), cpuRatio: cpuRatios.length === 0 ? null : median(cpuRatios) };
 }
 
 /** The floor script: the same browser, started by a plain puppeteer-core script, one trivial page printed to PDF. */
@@ -289,7 +296,7 @@ try {
     const check = pairs("node -e 0", () => wholeProcess(["-e", "0"], scratch), "firephase check demo-region", () => wholeProcess([BIN, "check", demoCopy], scratch), PAIRS);
     const version = pairs("node -e 0", () => wholeProcess(["-e", "0"], scratch), "firephase --version", () => wholeProcess([BIN, "--version"], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
     headline.push(
-      `check demo-region ÷ node -e 0: ${check.ratio.toFixed(2)}× (target ≤ 2.5×; ${check.b.median.toFixed(0)} ms against ${check.a.median.toFixed(0)} ms)`,
+      `check demo-region ÷ node -e 0: ${check.ratio.toFixed(2)}× (target ≤ 2.5×; ${check.b.median.toFixed(0)} ms against ${check.a.median.toFixed(0)} ms)${check.cpuRatio === null ? "" : `; CPU time ${check.cpuRatio.toFixed(2)}×`}`,
       `--version ÷ node -e 0: ${version.ratio.toFixed(2)}× (${version.b.median.toFixed(0)} ms)`,
     );
   }
@@ -300,7 +307,7 @@ try {
     const brief = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
     single = brief.b;
     headline.push(
-      `brief demo-region ÷ browser floor: ${brief.ratio.toFixed(2)}× (target ≤ 1.5×; ${brief.b.median.toFixed(0)} ms against ${brief.a.median.toFixed(0)} ms)`,
+      `brief demo-region ÷ browser floor: ${brief.ratio.toFixed(2)}× (target ≤ 1.5×; ${brief.b.median.toFixed(0)} ms against ${brief.a.median.toFixed(0)} ms)${brief.cpuRatio === null ? "" : `; CPU time of the node process ${brief.cpuRatio.toFixed(2)}×`}`,
     );
   }
   if (SECTIONS.has("batch")) {
