@@ -138,6 +138,27 @@ describe("an interrupted `firephase brief` leaves no browser and no profile fold
     expect(runs.filter((run) => run.browserAtKill).length).toBeGreaterThanOrEqual(3);
   }, 300_000);
 
+  it("an interrupted batch of regions (worker threads, one browser) leaves nothing behind either", async () => {
+    const tmp = join(work, "tmp-batch");
+    const outDir = join(work, "out-batch");
+    mkdirSync(tmp);
+    mkdirSync(outDir);
+    const second = join(work, "region-b");
+    cpSync(region, second, { recursive: true });
+    const child = spawn(process.execPath, [BUILT_BIN, "brief", region, second, "--out-dir", outDir, "--force", "--no-keep", "--issued", "2027-03-10", "--browser", browserPath], {
+      env: { ...process.env, TMPDIR: tmp, FIREPHASE_THREADS: "2" },
+      stdio: "ignore",
+    });
+    const exit = new Promise<{ code: number | null }>((done) => child.once("exit", (code) => done({ code })));
+    const started = Date.now();
+    while (browsersUsing(tmp).length === 0 && Date.now() - started < 20_000 && child.exitCode === null) await new Promise((done) => setTimeout(done, 20));
+    expect(browsersUsing(tmp).length).toBeGreaterThan(0);
+    child.kill("SIGTERM");
+    const { code } = await exit;
+    expect(code).toBe(143);
+    expect(await settled(tmp)).toEqual({ processes: [], profiles: [] });
+  }, 60_000);
+
   it("a second signal during the clean-up still leaves nothing behind", async () => {
     const tmp = join(work, "tmp-double");
     mkdirSync(tmp);
