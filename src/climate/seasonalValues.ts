@@ -1,6 +1,3 @@
-import { addMonths } from "date-fns/addMonths";
-import { getMonth } from "date-fns/getMonth";
-import { getYear } from "date-fns/getYear";
 
 /** English three-letter month abbreviations, January first, as accepted in `"months"`. */
 export const MONTH_ABBREVIATIONS = [
@@ -63,15 +60,23 @@ export function parseMonthWindow(text: string): MonthWindow | null {
   return { text: normalised, firstMonth, lastMonth, length };
 }
 
-/** Noon on the first of a month, built with setFullYear so that years 0–99 are not read as 1900–1999. */
-function monthDate(year: number, month: number): Date {
-  const date = new Date(2000, 0, 1, 12, 0, 0, 0);
-  date.setFullYear(year, month - 1, 1);
-  return date;
+/**
+ * Months counted on one line: month number `year × 12 + (month − 1)`, so that month arithmetic
+ * across the new year is integer addition (no Date objects: the readers call this for every month
+ * of a multi-century record, and it must be exact for any integer year, 0–99 included).
+ */
+function monthNumber(year: number, month: number): number {
+  return year * 12 + (month - 1);
+}
+
+/** The calendar year and month (1–12) of a month number from {@link monthNumber}. */
+function fromMonthNumber(number: number): { year: number; month: number } {
+  const year = Math.floor(number / 12);
+  return { year, month: number - year * 12 + 1 };
 }
 
 /**
- * The calendar months of the season that ends in `seasonYear`, first to last (date-fns month
+ * The calendar months of the season that ends in `seasonYear`, first to last (integer month
  * arithmetic: the last month is in `seasonYear`, earlier months are counted back from it).
  *
  * @param window - a month window from {@link parseMonthWindow}
@@ -82,12 +87,9 @@ function monthDate(year: number, month: number): Date {
  * // => [{ year: 1997, month: 12 }, { year: 1998, month: 1 }, { year: 1998, month: 2 }, { year: 1998, month: 3 }]
  */
 export function seasonMonths(window: MonthWindow, seasonYear: number): { year: number; month: number }[] {
-  const end = monthDate(seasonYear, window.lastMonth);
+  const end = monthNumber(seasonYear, window.lastMonth);
   const months: { year: number; month: number }[] = [];
-  for (let back = window.length - 1; back >= 0; back--) {
-    const date = addMonths(end, -back);
-    months.push({ year: getYear(date), month: getMonth(date) + 1 });
-  }
+  for (let back = window.length - 1; back >= 0; back--) months.push(fromMonthNumber(end - back));
   return months;
 }
 
@@ -103,7 +105,7 @@ export function seasonYearOf(window: MonthWindow, year: number, month: number): 
   const offset = (month - window.firstMonth + 12) % 12;
   if (offset >= window.length) return null;
   const monthsToEnd = window.length - 1 - offset;
-  return getYear(addMonths(monthDate(year, month), monthsToEnd));
+  return fromMonthNumber(monthNumber(year, month) + monthsToEnd).year;
 }
 
 /**

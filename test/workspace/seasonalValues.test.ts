@@ -1,3 +1,4 @@
+import { addMonths } from "date-fns/addMonths";
 import fc from "fast-check";
 import jStat from "jstat";
 import { describe, expect, it } from "vitest";
@@ -41,6 +42,24 @@ describe("seasonMonths(window, seasonYear) and seasonYearOf(window, year, month)
       { year: 50, month: 2 },
     ]);
     expect(seasonYearOf(window("Dec-Mar"), -1, 12)).toBe(0);
+  });
+
+  it("agrees with date-fns calendar arithmetic (addMonths) for every window and years −9999…9999", () => {
+    const names = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 11 }), fc.integer({ min: 0, max: 11 }), fc.integer({ min: -9999, max: 9999 }), (first, last, year) => {
+        const w = window(first === last ? names[first]! : `${names[first]}-${names[last]}`);
+        const end = new Date(2000, 0, 1, 12);
+        end.setFullYear(year, w.lastMonth - 1, 1);
+        const expected = Array.from({ length: w.length }, (_, i) => {
+          const date = addMonths(end, i - (w.length - 1));
+          return { year: date.getFullYear(), month: date.getMonth() + 1 };
+        });
+        expect(seasonMonths(w, year)).toEqual(expected);
+        for (const month of expected) expect(seasonYearOf(w, month.year, month.month)).toBe(year);
+      }),
+      { seed: 20261203, numRuns: 300 },
+    );
   });
 });
 
