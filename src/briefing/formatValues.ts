@@ -8,7 +8,9 @@
  * ("not computable" for NaN, "∞" for an infinity); a number too large for fixed notation is
  * written as a power of ten ("1.2 × 10^200").
  */
-import { format, isValid, parseISO } from "date-fns";
+import { format } from "date-fns/format";
+import { isValid } from "date-fns/isValid";
+import { parseISO } from "date-fns/parseISO";
 
 /** The words printed for a NaN (a figure that could not be computed). */
 export const NOT_COMPUTABLE = "not computable";

@@ -47,7 +47,7 @@ describe("runCalibration(workspace)", () => {
     expect(reseeded.indices[0]?.phases).toEqual(calibration.indices[0]?.phases);
   });
 
-  it("keeps every promised JSON key (DESIGN.md)", () => {
+  it("keeps every promised JSON key (README, JSON output)", () => {
     const json = toCalibrationJson(calibration) as Record<string, any>;
     expect(json.schema).toBe("firephase.calibration/1");
     expect(Object.keys(json)).toEqual(expect.arrayContaining(["region", "period", "fireYears", "indices"]));

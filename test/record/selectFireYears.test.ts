@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { selectFireYears } from "../../src/record/selectFireYears.js";
 
-// Hand-counted examples of the DESIGN.md rule: threshold = activity of the ceil(top × N)-th
+// Hand-counted examples of the high-fire-year rule (README, "Methods"): threshold = activity of the ceil(top × N)-th
 // highest year; fire years have activity ≥ threshold and > 0; ties are all in.
 describe("selectFireYears(activity, years, top, measure)", () => {
   const years = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
