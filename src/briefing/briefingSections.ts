@@ -162,18 +162,21 @@ export interface CurveView {
  * @returns the chart and caption, or why none is drawn.
  * @throws never.
  * @example
- * curveView(calibration.indices[0], [{ value: 1.2, fireYear: true }], 1.3).shown; // => true when p ≤ 0.05
+ * curveView(calibration.indices[0], [{ value: 1.2, fireYear: true }], 1.3).shown; // => true when q ≤ 0.05
  * @see Hosmer D.W., Lemeshow S., Sturdivant R.X. (2013) Applied Logistic Regression, 3rd edition, Wiley.
  */
 export function curveView(index: IndexCalibration, years: readonly { readonly value: number; readonly fireYear: boolean }[], current: number | null): CurveView {
   const curve = index.curve;
   if (curve === null || curve === undefined) return { shown: false, chart: null, caption: "", missingText: `Response curve: ${missing(index.curveReason)}.` };
-  if (!isFiniteNumber(curve.pValue) || curve.pValue > 0.05) {
+  // Clear only by the q-value across all indices' curves (the strongest of k curves reaches p ≤ 0.05 by
+  // chance about 1 − 0.95^k of the time); a curve without a q (not set by the calibration) uses its p.
+  const q = curve.qValue ?? curve.pValue;
+  if (!isFiniteNumber(q) || q > 0.05) {
     return {
       shown: false,
       chart: null,
       caption: "",
-      missingText: `No response curve is drawn for ${index.name}: its fit shows no clear link (likelihood-ratio p = ${formatPValue(curve.pValue)}).`,
+      missingText: `No response curve is drawn for ${index.name}: its fit shows no clear link (likelihood-ratio p = ${formatPValue(curve.pValue)}${isFiniteNumber(curve.qValue) ? `, q = ${formatPValue(curve.qValue)} across indices` : ""}).`,
     };
   }
   const chart = responseCurveChart({
@@ -189,7 +192,7 @@ export function curveView(index: IndexCalibration, years: readonly { readonly va
     chart: trustSvg(chart),
     caption:
       `How the chance of a high-fire year rises or falls with the ${index.name} value: a logistic regression on ${plural(curve.years, "calibration year", "calibration years")} ` +
-      `(${formatCount(curve.fireYears)} high-fire), ${curve.method}, likelihood-ratio p = ${formatPValue(curve.pValue)}; the band is ${curve.band}. ` +
+      `(${formatCount(curve.fireYears)} high-fire), ${curve.method}, likelihood-ratio p = ${formatPValue(curve.pValue)}${isFiniteNumber(curve.qValue) ? ` (q = ${formatPValue(curve.qValue)}, false discovery rate across indices)` : ""}; the band is ${curve.band}. ` +
       `Ticks under the curve are the past years (taller: high-fire years); the curve is not read beyond the record's range (${formatDecimal(curve.range.min, 2)} to ${formatDecimal(curve.range.max, 2)}).` +
       (curve.separation ? " The record separates high-fire years completely at some value, so the penalized (Firth) fit is shown." : ""),
     missingText: "",

@@ -1,6 +1,7 @@
 import { classifyPhase } from "../climate/phaseDefinition.js";
 import type { PhaseDefinition } from "../climate/types.js";
 import { selectFireYears } from "../record/selectFireYears.js";
+import { benjaminiHochberg } from "../stats/benjaminiHochberg.js";
 import { breslowDayTest } from "../stats/breslowDayTest.js";
 import { oddsRatioWoolf } from "../stats/oddsRatioWoolf.js";
 import { quantileSorted } from "../stats/quantileSorted.js";
@@ -105,7 +106,7 @@ export function modernEra(input: ModernEraInput): ModernEraResult {
     });
   }
 
-  const indices: ModernIndex[] = input.indices.map((index) => {
+  const perIndex = input.indices.map((index) => {
     const values = input.indexValues.get(index.name) ?? new Map<number, number>();
     const modernYears = years.filter((year) => values.has(year));
     const counts = index.definition.labels.map(() => ({ years: 0, fireYears: 0 }));
@@ -121,7 +122,7 @@ export function modernEra(input: ModernEraInput): ModernEraResult {
       fireYears: cell.fireYears,
       probability: proportionEstimate(cell.fireYears, cell.years, input.interval),
     }));
-    const homogeneity = twoEraTest({
+    const testInput: TwoEraInput = {
       index: index.name,
       definition: index.definition,
       fireScarPhases: index.phases,
@@ -130,8 +131,15 @@ export function modernEra(input: ModernEraInput): ModernEraResult {
       fireScarFireYears: input.fireScarFireYears,
       modernYears,
       modernFireYears: fireSet,
-    });
-    return { name: index.name, years: modernYears.length, phases, homogeneity };
+    };
+    return { name: index.name, years: modernYears.length, phases, testInput, homogeneity: twoEraTest(testInput) };
+  });
+  // "The link differs" is said only by the q-value across the indices (Benjamini–Hochberg): one of k
+  // indices reaches p ≤ 0.05 by chance about 1 − 0.95^k of the time.
+  const eraQValues = benjaminiHochberg(perIndex.map((entry) => entry.homogeneity.pValue ?? NaN));
+  const indices: ModernIndex[] = perIndex.map(({ testInput, ...entry }, position) => {
+    const q = eraQValues[position];
+    return { ...entry, homogeneity: twoEraTest({ ...testInput, qValue: q !== undefined && Number.isFinite(q) ? q : null }) };
   });
 
   const overlap = input.calibrationYears.filter((year) => activity.has(year));
@@ -179,6 +187,8 @@ interface TwoEraInput {
   readonly fireScarFireYears: ReadonlySet<number>;
   readonly modernYears: readonly number[];
   readonly modernFireYears: ReadonlySet<number>;
+  /** Benjamini–Hochberg q of this test's p across the indices; the sentence says "differs" only when q ≤ 0.05. */
+  readonly qValue?: number | null;
 }
 
 const TEST_NAME = "Breslow–Day test of a common odds ratio across the two eras, with Tarone's correction";
@@ -251,11 +261,15 @@ function twoEraTest(input: TwoEraInput): ModernHomogeneity {
         ? "stronger"
         : "same";
   const modernFire = modern[0][0] + modern[1][0];
-  const canTell = pValue !== null && pValue <= 0.05 && modernFire >= MIN_MODERN_FIRE_YEARS;
+  const qValue = input.qValue === undefined ? pValue : input.qValue;
+  const canTell = qValue !== null && qValue <= 0.05 && modernFire >= MIN_MODERN_FIRE_YEARS;
   const n = input.modernYears.length;
   const looks = direction === "same" ? "the same" : (direction ?? "different");
   const ratios = `odds ratio ${formatRatio(modernOddsRatio)} in the modern record against ${formatRatio(fireScarOddsRatio)} in the fire-scar record`;
-  const pWords = pValue === null ? `the test could not be computed${test.reason === undefined ? "" : ` (${test.reason})`}` : `Breslow–Day p = ${formatP(pValue)}`;
+  const pWords =
+    pValue === null
+      ? `the test could not be computed${test.reason === undefined ? "" : ` (${test.reason})`}`
+      : `Breslow–Day p = ${formatP(pValue)}${input.qValue === undefined || input.qValue === null ? "" : `, q = ${formatP(input.qValue)} across indices`}`;
   let sentence: string;
   if (canTell) {
     sentence =
@@ -276,6 +290,7 @@ function twoEraTest(input: TwoEraInput): ModernHomogeneity {
     statistic: Number.isFinite(test.statistic) ? test.statistic : null,
     df: test.df,
     pValue,
+    ...(input.qValue === undefined ? {} : { qValue: input.qValue }),
     commonOddsRatio: Number.isFinite(test.commonOddsRatio) ? test.commonOddsRatio : null,
     fireScarOddsRatio: Number.isFinite(fireScarOddsRatio) ? fireScarOddsRatio : null,
     modernOddsRatio: Number.isFinite(modernOddsRatio) ? modernOddsRatio : null,

@@ -171,10 +171,15 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
   });
 
   const qValues = benjaminiHochberg(calibrated.map((index) => index.contingency.pValue ?? NaN));
-  const indices = calibrated.map((index, i) => {
-    const q = qValues[i];
-    return { ...index, contingency: { ...index.contingency, qValue: q !== undefined && Number.isFinite(q) ? q : null } };
-  });
+  // The response curves are tested across all indices too: the strongest of k curves reaches p ≤ 0.05
+  // by chance about 1 − 0.95^k of the time, so a curve shows a clear link only by its q-value.
+  const curveQValues = benjaminiHochberg(calibrated.map((index) => index.curve?.pValue ?? NaN));
+  const finiteOrNull = (q: number | undefined): number | null => (q !== undefined && Number.isFinite(q) ? q : null);
+  const indices = calibrated.map((index, i) => ({
+    ...index,
+    contingency: { ...index.contingency, qValue: finiteOrNull(qValues[i]) },
+    curve: index.curve === null || index.curve === undefined ? index.curve : { ...index.curve, qValue: finiteOrNull(curveQValues[i]) },
+  }));
 
   const modern = modernEra({
     rows: workspace.modern,

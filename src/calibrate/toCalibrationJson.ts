@@ -49,6 +49,7 @@ function curveJson(curve: ResponseCurve): Record<string, unknown> {
     covariance: curve.covariance,
     likelihoodRatio: curve.likelihoodRatio,
     pValue: curve.pValue,
+    ...(curve.qValue === undefined ? {} : { qValue: curve.qValue }),
     method: curve.method,
     separation: curve.separation,
     converged: curve.converged,

@@ -143,6 +143,8 @@ export interface ResponseCurve {
   /** Likelihood-ratio statistic against the intercept-only model and its chi-square (1 df) p-value. */
   readonly likelihoodRatio: number;
   readonly pValue: number;
+  /** Benjamini–Hochberg q of `pValue` across all indices' curves (set by the calibration; absent on a fold's own fit). */
+  readonly qValue?: number | null;
   readonly method: "maximum likelihood" | "Firth penalized likelihood";
   /** (Quasi-)complete separation found in the maximum-likelihood fit (then the Firth fit is reported). */
   readonly separation: boolean;
@@ -184,6 +186,8 @@ export interface ModernHomogeneity {
   readonly statistic: number | null;
   readonly df: number;
   readonly pValue: number | null;
+  /** Benjamini–Hochberg q of pValue across the indices; "canTell" (the link differs) needs q ≤ 0.05. */
+  readonly qValue?: number | null;
   readonly commonOddsRatio: number | null;
   /** Odds ratio of the phase vs the other phases in each era (Woolf; +0.5 to every cell when one is zero). */
   readonly fireScarOddsRatio: number | null;

@@ -129,18 +129,26 @@ function formatIndex(index: IndexCalibration, fireYearCount: number): string[] {
   if (sea.reason !== undefined) {
     lines.push(`  Superposed epoch analysis: not enough data (${sea.reason})`);
   } else {
-    const significant = sea.lags.flatMap((lag, i) => {
+    // A departure is clear by its q-value (Benjamini–Hochberg across the lags): with seven lags, one
+    // raw p below 0.05 turns up by chance about one time in three.
+    const departure = (lag: number, i: number, clear: boolean): string[] => {
       const p = sea.pValue[i];
+      const q = sea.qValue[i];
       const mean = sea.mean[i];
-      return p !== null && p !== undefined && p < 0.05 && mean !== null && mean !== undefined
-        ? [`lag ${lag > 0 ? "+" : ""}${lag}: ${mean >= 0 ? "+" : ""}${mean.toFixed(2)} (p ${formatP(p)}, q ${formatP(sea.qValue[i])})`]
-        : [];
-    });
+      if (p === null || p === undefined || mean === null || mean === undefined || p >= 0.05) return [];
+      const isClear = q !== null && q !== undefined && q <= 0.05;
+      return isClear === clear ? [`lag ${lag > 0 ? "+" : ""}${lag}: ${mean >= 0 ? "+" : ""}${mean.toFixed(2)} (p ${formatP(p)}, q ${formatP(q)})`] : [];
+    };
+    const significant = sea.lags.flatMap((lag, i) => departure(lag, i, true));
+    const chanceLevel = sea.lags.flatMap((lag, i) => departure(lag, i, false));
     lines.push(
       `  Superposed epoch analysis (${sea.eventYears.length} of ${fireYearCount} high-fire years` +
         (sea.eventYears.length < fireYearCount ? ", the others lack index values somewhere in their window" : "") +
         `; ${sea.draws} random draws): ` +
-        (significant.length === 0 ? "no lag departs from chance at p < 0.05" : `departures at p < 0.05 — ${significant.join("; ")}`),
+        (significant.length === 0
+          ? "no lag departs clearly from chance (q at most 0.05, false discovery rate across lags)"
+          : `clear departures (q at most 0.05, false discovery rate across lags) — ${significant.join("; ")}`) +
+        (chanceLevel.length === 0 ? "" : `; p below 0.05 but not clear among ${sea.lags.length} lags — ${chanceLevel.join("; ")}`),
     );
   }
   const agg = index.aggregated;

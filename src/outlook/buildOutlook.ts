@@ -280,7 +280,7 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   });
   // With no current value there is no choice of index to allow for, so no sentence.
   const note = currentPhase.size === 0 ? null : selectionNote(fireYear, selection.interval, formatPercentRange);
-  const strength = curveOdds === null ? null : strengthNote(curveOdds, calibration, training, indexValues, currentPhase);
+  const strength = curveOdds === null ? null : strengthNote(curveOdds, calibration, training, indexValues, currentPhase, jointMaxQ);
   const fireYearWithComparison = {
     ...fireYear,
     comparedWithBase: comparedWithBase(fireYear, calibration.baseRate),

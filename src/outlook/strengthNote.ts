@@ -19,6 +19,7 @@ export const STRONG_WITHIN_PHASE = 0.75;
  * @param training - the calibration's training set (phase of each calibration year)
  * @param indexValues - index values by index name and year
  * @param currentPhase - this season's phase number per index
+ * @param maxQ - largest Benjamini–Hochberg q of the curve (across indices) for which a strength note is written (methods.jointMaxQ, default 0.05)
  * @returns the sentence, or null when the value is not strong within an outer phase
  * @example
  * strengthNote({ index: "ENSO", value: 1.6, estimate: 0.45, … }, calibration, training, new Map([["ENSO", 2]]));
@@ -30,10 +31,15 @@ export function strengthNote(
   training: TrainingSet,
   indexValues: IndexValues,
   currentPhase: ReadonlyMap<string, number>,
+  maxQ = 0.05,
 ): string | null {
   const index = calibration.indices.find((candidate) => candidate.name === curve.index);
   const phase = currentPhase.get(curve.index);
   if (index === undefined || phase === undefined) return null;
+  // A strength reading is a link claim: only for a curve with a clear link across the indices
+  // (Benjamini–Hochberg q of its likelihood-ratio p at most maxQ), never for a flat, chance curve.
+  const q = index.curve?.qValue;
+  if (q === null || q === undefined || !Number.isFinite(q) || q > maxQ) return null;
   const last = index.definition.labels.length - 1;
   if (last < 1 || (phase !== 0 && phase !== last)) return null;
   const values = phaseValues(training, indexValues, curve.index, phase);

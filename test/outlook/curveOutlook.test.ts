@@ -74,6 +74,26 @@ describe("buildOutlook with methods.response 'curve' on a planted dose-response 
   });
 });
 
+describe("strength note and curve q-value on records without a link", () => {
+  it("a strong value in an outer phase gets no strength note when the curve has no clear link (q across indices above 0.05)", () => {
+    let notes = 0;
+    let checked = 0;
+    for (const seed of [3, 5, 8, 13, 21, 34]) {
+      const workspace = syntheticWorkspace({ effect: 0, seed, methods: { ...QUICK, response: "phase" } });
+      const calibration = runCalibration(workspace);
+      const curve = calibration.indices.find((index) => index.name === "A")!.curve!;
+      expect(curve.qValue).toBeGreaterThanOrEqual(curve.pValue);
+      const outlook = buildOutlook(workspace, calibration, { values: { A: 2.4, B: 0 }, issued: "2027-03-10", season: 2027 });
+      if (curve.qValue! > 0.05) {
+        checked += 1;
+        if (outlook.fireYear.strengthNote !== undefined && outlook.fireYear.strengthNote !== null) notes += 1;
+      }
+    }
+    expect(checked).toBeGreaterThan(0);
+    expect(notes).toBe(0);
+  });
+});
+
 describe("buildOutlook — current values: sources, details, near-boundary margin, z", () => {
   const workspace = syntheticWorkspace({ effect: 1.6, seed: 11, methods: QUICK });
   const calibration = runCalibration(workspace);
