@@ -58,6 +58,7 @@ export function formatOutlook(outlook: Outlook): string {
       `base rate ${formatPercent(outlook.baseRate.estimate)} (${formatPercentRange(outlook.baseRate.lower, outlook.baseRate.upper)})`,
   );
   out.push(`  read from ${outlook.fireYear.basis}`);
+  out.push(...oddsDetailLines(outlook));
   const c = outlook.categories;
   out.push(
     `Fire activity: below normal ${formatPercent(c.below.estimate)}, near normal ${formatPercent(c.near.estimate)}, above normal ${formatPercent(c.above.estimate)}`,
@@ -138,6 +139,44 @@ export function formatOutlook(outlook: Outlook): string {
   out.push("Caution: a statistical long-range outlook. It does not replace official agency outlooks, fire-danger ratings,");
   out.push("local codes or the direction of qualified fire personnel, and must never be used for tactical or evacuation decisions.");
   return `${out.join("\n")}\n`;
+}
+
+/**
+ * The lines under the headline odds that the JSON and the briefing also carry: the interval that
+ * allows for the rule's choice of index (`fireYear.selectionInterval`) with its note, and the
+ * response curve's reading at this season's value (`fireYear.curveOdds`) with the strength note.
+ * A reading that could not be made is "not enough data" with its reason.
+ */
+export function oddsDetailLines(outlook: Outlook): string[] {
+  const fireYear = outlook.fireYear;
+  const lines: string[] = [];
+  const selection = fireYear.selectionInterval;
+  if (selection !== undefined) {
+    lines.push(
+      selection === null
+        ? `  95% interval allowing for the rule's choice of index: not enough data${fireYear.selectionIntervalReason === undefined ? "" : ` (${fireYear.selectionIntervalReason})`}`
+        : `  95% interval allowing for the rule's choice of index: ${formatPercentRange(selection.lower, selection.upper)}` +
+            ` (${selection.resamples} block-bootstrap resamples of the whole rule)`,
+    );
+  }
+  if (fireYear.selectionNote !== null && fireYear.selectionNote !== undefined) lines.push(`  ${fireYear.selectionNote}`);
+  const curve = fireYear.curveOdds;
+  if (curve !== undefined) {
+    const headlineMark = fireYear.response === "curve" ? " (the headline above)" : "";
+    if (curve === null) {
+      lines.push(`  response curve: not enough data${fireYear.curveOddsReason === undefined ? "" : ` (${fireYear.curveOddsReason})`}`);
+    } else {
+      const beyond =
+        curve.beyondRange === null
+          ? ""
+          : `; ${fixed(curve.value, 2)} is ${curve.beyondRange} every calibration year (${fixed(curve.range.min, 2)} to ${fixed(curve.range.max, 2)}), so the curve is read at ${fixed(curve.readAt, 2)}, the record's edge`;
+      lines.push(
+        `  response curve of ${curve.index} at ${fixed(curve.value, 2)}: ${formatPercent(curve.estimate)} (${formatPercentRange(curve.lower, curve.upper)})${headlineMark}${beyond}`,
+      );
+    }
+  }
+  if (fireYear.strengthNote !== null && fireYear.strengthNote !== undefined) lines.push(`  ${fireYear.strengthNote}`);
+  return lines;
 }
 
 /** " [lo, hi]" of a bootstrap interval, or "" when there is none. */

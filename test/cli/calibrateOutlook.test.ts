@@ -63,6 +63,26 @@ describe("firephase outlook demo-region", () => {
     expect(run.stdout).toMatch(/does not replace official agency outlooks/);
   });
 
+  it("prints what the JSON and the briefing carry: the selection-aware interval, the curve odds and their notes", async () => {
+    const text = await runInProcess(["outlook", DEMO, "--issued", "2027-03-10"]);
+    const json = JSON.parse((await runInProcess(["outlook", DEMO, "--issued", "2027-03-10", "--json"])).stdout);
+    expect(text.code).toBe(0);
+    const pct = (p: number): number => Math.round(p * 100);
+    const selection = json.fireYear.selectionInterval;
+    expect(text.stdout).toContain(`  95% interval allowing for the rule's choice of index: ${pct(selection.lower)}–${pct(selection.upper)}% (${selection.resamples} block-bootstrap resamples of the whole rule)\n`);
+    expect(text.stdout).toContain(`  ${json.fireYear.selectionNote}\n`);
+    const curve = json.fireYear.curveOdds;
+    expect(curve.beyondRange).toBeNull();
+    expect(text.stdout).toContain(`  response curve of PMI at ${curve.value.toFixed(2)}: ${pct(curve.estimate)}% (${pct(curve.lower)}–${pct(curve.upper)}%)\n`);
+    expect(text.stdout).toContain(`  ${json.fireYear.strengthNote}\n`);
+  });
+
+  it("says when this season's value lies beyond the calibration range of the curve", async () => {
+    const run = await runInProcess(["outlook", DEMO, "--issued", "2027-03-10", "--values", "PMI=-9"]);
+    expect(run.code).toBe(0);
+    expect(run.stdout).toMatch(/response curve of PMI at -9\.00: \d+% \(\d+–\d+%\); -9\.00 is below every calibration year \(-?\d+\.\d\d to -?\d+\.\d\d\), so the curve is read at -\d+\.\d\d, the record's edge\n/);
+  });
+
   it("merges repeated --values (U+2212 minus too) and says where each value came from", async () => {
     const run = await runInProcess(["outlook", DEMO, "--issued", "2027-03-10", "--values", "ENSO=\u22121", "--values", "WSI=0.1", "--json"]);
     expect(run.code).toBe(0);
