@@ -1,12 +1,18 @@
-import { cpSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { runInProcess } from "./helpers.js";
 
 // The invented demo region (demo-region/README.md). Outlook runs pass --issued 2027-03-10, the
 // demo's own issue date, so that they do not depend on the wall clock.
 const DEMO = "demo-region";
+
+/** Temporary folders made by these tests, removed when the file is done. */
+const made: string[] = [];
+afterAll(() => {
+  for (const folder of made) rmSync(folder, { recursive: true, force: true });
+});
 
 describe("firephase calibrate demo-region", () => {
   it("shows the planted dry-PMI link with intervals", async () => {
@@ -32,7 +38,9 @@ describe("firephase calibrate demo-region", () => {
 
 describe("firephase calibrate with unusable settings", () => {
   it("exits 1 with a region.json message when no calibration year is usable", async () => {
-    const folder = join(mkdtempSync(join(tmpdir(), "firephase-cal-")), "region");
+    const parent = mkdtempSync(join(tmpdir(), "firephase-cal-"));
+    made.push(parent);
+    const folder = join(parent, "region");
     cpSync(DEMO, folder, { recursive: true });
     const region = JSON.parse(readFileSync(join(folder, "region.json"), "utf8"));
     region.calibration = { first: 1200, last: 1300 };
