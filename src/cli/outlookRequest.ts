@@ -237,9 +237,15 @@ export function resolveOutlookDates(workspace: Workspace, options: OutlookOption
   return { issued, season, valuesSeason, useFileValues, notes };
 }
 
+/** Dashes read as a minus sign before a value: U+2212 minus, U+2012 figure dash, U+2013 en dash, U+2014 em dash, U+FE63 small hyphen-minus, U+FF0D fullwidth hyphen-minus. */
+const MINUS_SIGNS = /[\u2212\u2012\u2013\u2014\uFE63\uFF0D]/g;
+
 /**
  * Reads `--values NAME=V,…` (repeatable; every index named once). A value may be written with
- * the Unicode minus sign U+2212 (as the briefing prints it).
+ * the Unicode minus sign U+2212 (as the briefing prints it) or another dash (U+2012, U+2013,
+ * U+2014, U+FE63, U+FF0D), each read as a minus. A decimal comma ("NAO=-0,8") is refused with
+ * "use a decimal point: -0.8"; a name that differs from an index only in case is refused with a
+ * did-you-mean.
  *
  * @param lists - the option's values as commander collected them
  * @param known - the region's index names
@@ -254,15 +260,26 @@ export function parseValuesOption(lists: readonly string[], known: readonly stri
   const given = new Set<string>();
   const knownSet = new Set(known);
   for (const list of lists) {
-    for (const part of list.split(",")) {
+    const parts = list.split(",");
+    for (const [position, part] of parts.entries()) {
       const trimmed = part.trim();
       if (trimmed === "") continue;
       const equals = trimmed.indexOf("=");
-      if (equals <= 0) throw new UsageError(`--values: expected NAME=VALUE, found "${trimmed}"`);
+      if (equals <= 0) {
+        const before = position > 0 ? (parts[position - 1] as string).trim() : "";
+        if (/^\d+$/.test(trimmed) && /=\s*\S*\d$/.test(before)) {
+          const whole = before.slice(before.indexOf("=") + 1).trim().replace(MINUS_SIGNS, "-");
+          throw new UsageError(`--values: "${before},${trimmed}" has a decimal comma; use a decimal point: ${whole}.${trimmed}`);
+        }
+        throw new UsageError(`--values: expected NAME=VALUE, found "${trimmed}"`);
+      }
       const name = trimmed.slice(0, equals).trim();
-      const text = trimmed.slice(equals + 1).trim().replace(/\u2212/g, "-");
+      const text = trimmed.slice(equals + 1).trim().replace(MINUS_SIGNS, "-");
       if (!knownSet.has(name)) {
-        throw new UsageError(`--values: unknown index "${name}"; this region's indices are ${known.join(", ")}`);
+        const close = known.find((candidate) => candidate.toLowerCase() === name.toLowerCase());
+        throw new UsageError(
+          `--values: unknown index "${name}"${close === undefined ? "" : ` (did you mean "${close}"? names are case-sensitive)`}; this region's indices are ${known.join(", ")}`,
+        );
       }
       if (given.has(name)) throw new UsageError(`--values: ${name} is given more than once`);
       if (!DECIMAL.test(text) || !Number.isFinite(Number(text))) {

@@ -101,6 +101,12 @@ describe("firephase outlook demo-region", () => {
     expect(json.current.find((c: { index: string }) => c.index === "PMI")).toMatchObject({ provisional: true, months: ["2026-12", "2027-01", "2027-02"] });
   });
 
+  it.each(["\u2012", "\u2013", "\u2014", "\ufe63", "\uff0d"])("reads the dash %j before a --values number as a minus", async (dash) => {
+    const run = await runInProcess(["outlook", DEMO, "--issued", "2027-03-10", "--values", `ENSO=${dash}0.8`, "--json"]);
+    expect(run.code).toBe(0);
+    expect(JSON.parse(run.stdout).current.find((c: { index: string }) => c.index === "ENSO").value).toBe(-0.8);
+  });
+
   it("takes --values over the files and keeps the promised JSON", async () => {
     const run = await runInProcess(["outlook", DEMO, "--values", "PMI=1.2", "--issued", "2027-02-01", "--season", "2027", "--json"]);
     expect(run.code).toBe(0);
@@ -118,6 +124,8 @@ describe("firephase outlook demo-region", () => {
     [["--values", "PMI=0x10"], /PMI must be a decimal number/],
     [["--values", "PMI=1e200"], /PMI = 1e200 is beyond ±1,000,000/],
     [["--values", "PMI=1,PMI=2"], /PMI is given more than once/],
+    [["--values", "PMI=-0,8"], /"PMI=-0,8" has a decimal comma; use a decimal point: -0\.8/],
+    [["--values", "pmi=0.4"], /unknown index "pmi" \(did you mean "PMI"\? names are case-sensitive\)/],
     [["--issued", "10 March"], /--issued: expected a date as YYYY-MM-DD/],
     [["--issued", "2027-02-30"], /--issued: 2027-02-30 does not exist \(February 2027 has 28 days\)/],
     [["--issued", "1500-03-01"], /--issued: 1500-03-01 is before the index records begin/],
