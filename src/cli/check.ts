@@ -230,6 +230,27 @@ export function formatCheckReport(report: CheckReport): string {
   return `${out.join("\n")}\n`;
 }
 
+/** Close site pairs printed in the terminal; the rest are counted (all are in `check --json`). */
+export const CLOSE_PAIRS_SHOWN = 5;
+
+/**
+ * The warning lines for the terminal: every warning except close site pairs, then the
+ * {@link CLOSE_PAIRS_SHOWN} closest pairs and one line counting the others.
+ *
+ * @param warnings - the report's warnings
+ * @param limitKm - the region's `methods.independenceKm`, named in the count line
+ * @returns lines starting "warning: ", without line ends
+ */
+export function terminalWarnings(warnings: readonly CheckWarning[], limitKm: number): string[] {
+  const close = warnings.filter((warning) => warning.code === "sites-close");
+  const lines = warnings.filter((warning) => warning.code !== "sites-close").map((warning) => `warning: ${warning.message}`);
+  const sorted = [...close].sort((a, b) => (a.distanceKm ?? 0) - (b.distanceKm ?? 0));
+  for (const warning of sorted.slice(0, CLOSE_PAIRS_SHOWN)) lines.push(`warning: ${warning.message}`);
+  const more = sorted.length - CLOSE_PAIRS_SHOWN;
+  if (more > 0) lines.push(`warning: and ${more} more site pair${more === 1 ? "" : "s"} closer than ${limitKm} km; all in check --json`);
+  return lines;
+}
+
 /**
  * `firephase check <region> [--json]`: validate a region folder and summarise it. Human summary
  * on stdout and warnings on stderr; with `--json`, one JSON object (schema "firephase.check/1")
@@ -245,12 +266,13 @@ export function checkCommand(): Command {
     .option("--json", "print the summary as JSON (schema firephase.check/1)")
     .action(async (region: string, options: { json?: boolean }) => {
       try {
-        const report = buildCheckReport(await loadWorkspace(region));
+        const workspace = await loadWorkspace(region);
+        const report = buildCheckReport(workspace);
         if (options.json === true) {
           printJson(report);
         } else {
           writeOut(formatCheckReport(report));
-          for (const warning of report.warnings) writeErr(`warning: ${warning.message}\n`);
+          for (const line of terminalWarnings(report.warnings, workspace.settings.methods.independenceKm)) writeErr(`${line}\n`);
         }
       } catch (error) {
         handleError(error, undefined, "check");

@@ -154,3 +154,26 @@ describe("node dist/cli/main.js (the built bin, spawned)", () => {
     expect(runBuilt(["--version"])).toMatchObject({ code: 0, stdout: "0.1.0\n" });
   });
 });
+
+describe("terminalWarnings(warnings, limitKm)", () => {
+  it("prints the 5 closest site pairs and counts the rest; other warnings stay whole", async () => {
+    const { terminalWarnings } = await import("../../src/cli/check.js");
+    const pairs = Array.from({ length: 24 }, (_, i) => ({
+      code: "sites-close",
+      message: `sites S${i} and T${i} are ${(30 - i).toFixed(1)} km apart`,
+      sites: [`S${i}`, `T${i}`] as const,
+      distanceKm: 30 - i,
+    }));
+    const lines = terminalWarnings([{ code: "thin-years", message: "2 years are thin" }, ...pairs], 40);
+    expect(lines).toEqual([
+      "warning: 2 years are thin",
+      "warning: sites S23 and T23 are 7.0 km apart",
+      "warning: sites S22 and T22 are 8.0 km apart",
+      "warning: sites S21 and T21 are 9.0 km apart",
+      "warning: sites S20 and T20 are 10.0 km apart",
+      "warning: sites S19 and T19 are 11.0 km apart",
+      "warning: and 19 more site pairs closer than 40 km; all in check --json",
+    ]);
+    expect(terminalWarnings(pairs.slice(0, 5), 40)).toHaveLength(5);
+  });
+});
