@@ -93,9 +93,20 @@ export function verdictDefinitions(indexNames) {
     },
     {
       key: "headlineCurve",
-      label: "curve of the headline index p ≤ 0.05 (drawn as a clear link)",
-      where: "src/outlook/buildOutlook.ts curveForecast on the index the phase rule selected",
+      label: "curve of the headline index shown as a clear link (its q ≤ 0.05)",
+      where: "src/outlook/buildOutlook.ts curveForecast on the index the phase rule selected; src/briefing/briefingSections.ts curveView",
       nominal: 0.05,
+      fires: ({ calibration, outlook }) => {
+        const name = outlook.fireYear.curveOdds?.index;
+        return curveClear(calibration.indices.find((index) => index.name === name)?.curve);
+      },
+    },
+    {
+      key: "headlineCurveP",
+      label: "curve of the headline index at p ≤ 0.05 (raw; selected by chi-square p)",
+      where: "src/calibrate/fitResponseCurve.ts pValue of the index the phase rule selected",
+      nominal: 0.05,
+      note: "selection: the index has the smallest chi-square p",
       fires: ({ calibration, outlook }) => {
         const name = outlook.fireYear.curveOdds?.index;
         const curve = calibration.indices.find((index) => index.name === name)?.curve;
@@ -112,15 +123,14 @@ export function verdictDefinitions(indexNames) {
     },
     {
       key: "strengthNoteNoLink",
-      label: "strength note shown while the curve's p > 0.05",
-      where: "src/outlook/strengthNote.ts strengthNote (no gate on the curve's p)",
+      label: "strength note shown while the curve shows no clear link (q > 0.05)",
+      where: "src/outlook/strengthNote.ts strengthNote",
       nominal: 0,
       note: "a strength reading with no shown link should not be printed",
       fires: ({ calibration, outlook }) => {
         if (typeof outlook.fireYear.strengthNote !== "string") return false;
         const name = outlook.fireYear.curveOdds?.index;
-        const curve = calibration.indices.find((index) => index.name === name)?.curve;
-        return !(curve !== undefined && curve !== null && curve.pValue <= 0.05);
+        return !curveClear(calibration.indices.find((index) => index.name === name)?.curve);
       },
     },
   ];
@@ -150,9 +160,18 @@ export function verdictDefinitions(indexNames) {
       },
     },
     {
+      key: "curveQ",
+      label: "response curve drawn as a clear link (q ≤ 0.05 across indices)",
+      where: "src/calibrate/runCalibration.ts curve qValue; src/briefing/briefingSections.ts curveView",
+      nominal: 0.05,
+      familyNominal: 0.05,
+      familyNote: "BH across indices",
+      fires: (index, { calibration }) => curveClear(calibration.indices.find((entry) => entry.name === index)?.curve),
+    },
+    {
       key: "curveP",
-      label: "response curve p ≤ 0.05 (briefing: 'fit shows a clear link')",
-      where: "src/calibrate/fitResponseCurve.ts; src/briefing/briefingSections.ts curveView",
+      label: "response curve p ≤ 0.05 (printed, raw)",
+      where: "src/calibrate/fitResponseCurve.ts",
       nominal: 0.05,
       familyNominal: families(indexNames.length, 0.05),
       familyNote: "no correction across indices: about 1 − 0.95^k",
@@ -163,11 +182,11 @@ export function verdictDefinitions(indexNames) {
     },
     {
       key: "twoEra",
-      label: 'two-era "looks weaker/stronger/differs" (Breslow–Day p ≤ 0.05, canTell)',
-      where: "src/calibrate/modernEra.ts twoEraTest",
+      label: 'two-era "looks weaker/stronger/differs" (canTell)',
+      where: "src/calibrate/modernEra.ts twoEraTest (Breslow–Day q across indices ≤ 0.05 where the code sets qValue, else p)",
       nominal: 0.05,
-      familyNominal: families(indexNames.length, 0.05),
-      familyNote: "no correction across indices: about 1 − 0.95^k",
+      familyNominal: 0.05,
+      familyNote: "BH across indices",
       fires: (index, { calibration }) => {
         const entry = calibration.modern?.indices.find((candidate) => candidate.name === index);
         return entry?.homogeneity?.canTell === true;
@@ -175,9 +194,10 @@ export function verdictDefinitions(indexNames) {
     },
     {
       key: "seaRaw",
-      label: 'SEA "departures at p < 0.05" (any lag, raw p)',
-      where: "src/cli/calibrate.ts formatIndex (lists lags at raw p < 0.05)",
-      nominal: 0.05,
+      label: "SEA some lag at raw p < 0.05",
+      where: "src/cli/calibrate.ts formatIndex (such lags are printed as 'p below 0.05 but not clear' when q > 0.05)",
+      nominal: null,
+      nominalText: "none stated (per lag 5%; any of 7 lags about 30%)",
       familyNominal: null,
       familyNominalText: "none stated (per lag 5%; any of L lags up to 1 − 0.95^L per index)",
       fires: (index, { calibration }) => {
@@ -187,8 +207,8 @@ export function verdictDefinitions(indexNames) {
     },
     {
       key: "seaQ",
-      label: "SEA any lag q ≤ 0.05 (BH across lags)",
-      where: "src/calibrate/seaForIndex.ts qValue",
+      label: 'SEA "clear departures" (some lag q ≤ 0.05, BH across lags)',
+      where: "src/calibrate/seaForIndex.ts qValue; src/cli/calibrate.ts formatIndex",
       nominal: 0.05,
       familyNominal: families(indexNames.length, 0.05),
       familyNote: "no correction across indices: about 1 − 0.95^k",
@@ -220,6 +240,7 @@ export function verdictDefinitions(indexNames) {
         label: `${verdict.label} — ${index}`,
         where: verdict.where,
         nominal: verdict.nominal,
+        nominalText: verdict.nominalText,
         fires: (ctx) => verdict.fires(index, ctx),
       });
     }
@@ -234,6 +255,13 @@ export function verdictDefinitions(indexNames) {
     });
   }
   return rows;
+}
+
+/** A response curve shown as a clear link: its q across indices (its p where the calibration sets no q) at most 0.05. */
+function curveClear(curve) {
+  if (curve === undefined || curve === null) return false;
+  const q = curve.qValue ?? curve.pValue;
+  return typeof q === "number" && q <= 0.05;
 }
 
 /** A workspace with the audit's method settings (and a seed of its own per replicate). */

@@ -111,7 +111,20 @@ describe("shuffledWorkspace(modules, workspace, random, blockYears)", () => {
 
 describe("chance audit on the demo region, fire record shuffled year by year (40 shuffles)", () => {
   // The verdicts that claim a link or skill at a stated 5% level (see the README's "Checked against chance").
-  const bounded = ["hindcastSkill", "curveSkill", "joint", "headlineClear", "comparedWithBase", "clearLink:any", "twoEra:PMI", "twoEra:ENSO", "twoEra:WSI"];
+  const bounded = [
+    "hindcastSkill",
+    "curveSkill",
+    "joint",
+    "headlineClear",
+    "comparedWithBase",
+    "clearLink:any",
+    "curveQ:any",
+    "headlineCurve",
+    "twoEra:any",
+    "seaQ:PMI",
+    "seaQ:ENSO",
+    "seaQ:WSI",
+  ];
   let result: ReturnType<AuditScript["auditDesign"]>;
 
   beforeAll(() => {
@@ -125,13 +138,17 @@ describe("chance audit on the demo region, fire record shuffled year by year (40
     });
   });
 
-  it(`each of ${bounded.join(", ")} fires in at most 6 of 40 shuffles (P(X ≥ 7) = 0.34% at a 5% rate, so about 3% that one of the nine does by chance)`, () => {
+  it(`each of ${bounded.join(", ")} fires in at most 6 of 40 shuffles (P(X ≥ 7) = 0.34% at a 5% rate, so about 4% that one of the twelve does by chance)`, () => {
     expect(script.binomialUpperTail(7, 40, 0.05)).toBeLessThan(0.005);
     const over = bounded.filter((key) => (result.counts[key] ?? Number.NaN) > 6 || !Number.isInteger(result.counts[key]));
     expect(over.map((key) => `${key}: ${result.counts[key]} of 40`)).toEqual([]);
     // The counts are real counts of a real run: every verdict was evaluated on every shuffle.
     expect(result.shuffles).toBe(40);
     for (const verdict of result.verdicts) expect(result.counts[verdict.key]).toBeLessThanOrEqual(40);
+  });
+
+  it("strengthNote(…) is never written for a curve without a clear link (q > 0.05) on shuffled records: 0 of 40", () => {
+    expect(result.counts["strengthNoteNoLink"]).toBe(0);
   });
 
   it("the audit sees an uncorrected family: some SEA lag (of 7, each at a raw 5%) is below p 0.05 for some index in more than 6 of 40 shuffles (about 1 − 0.95^21 ≈ 66% expected)", () => {
