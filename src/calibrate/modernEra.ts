@@ -281,7 +281,10 @@ function twoEraTest(input: TwoEraInput): ModernHomogeneity {
       modernFire < MIN_MODERN_FIRE_YEARS
         ? `${n} modern years with only ${modernFire} high-fire year(s) cannot tell`
         : `${n} modern years cannot tell`;
-    sentence = `The ${input.index} ${label} link looks ${looks} in the modern record, and ${why} (${ratios}; ${pWords}).`;
+    sentence =
+      direction === "same"
+        ? `The ${input.index} ${label} link shows no clear change in the modern record, but ${why} whether it has changed a little (${ratios}; ${pWords}).`
+        : `The ${input.index} ${label} link looks ${looks} in the modern record, but ${why} this from chance (${ratios}; ${pWords}).`;
   }
   return {
     test: TEST_NAME,

@@ -266,7 +266,7 @@ function finishSkill(
   streams: readonly [number, number],
   scoreCategories: boolean,
 ): Skill {
-  const verdict = skillVerdict(skill.brierSkillScore, test.pValue);
+  const verdict = skillVerdict(skill.brierSkillScore, test.pValue, test.pValue === null ? test.reason : undefined);
   const scored: ScoredYear[] = forecasts.map((forecast) => ({
     probability: forecast.probability,
     reference: event.baseRate,
@@ -285,7 +285,8 @@ function finishSkill(
           forecasts.map((forecast) => forecast.probability),
           forecasts.map((forecast) => forecast.fireYear),
           streamOf(seed, streams[1]),
-          { resamples: Math.max(0, resamples) },
+          // 95% like every other interval in the outlook (the CORP paper's own default is 90%).
+          { resamples: Math.max(0, resamples), level: 0.95 },
         );
   return {
     ...skill,
@@ -293,7 +294,8 @@ function finishSkill(
     verdict: verdict.text,
     skillPValue: test.pValue,
     ...(test.reason === undefined ? {} : { skillPValueReason: test.reason }),
-    permutations,
+    // The shuffles actually behind skillPValue: none when the test was not run.
+    permutations: test.pValue === null ? 0 : permutations,
     permutationBlockYears: Math.max(1, Math.min(blockYears, event.fire.length)),
     intervals,
     ...(intervals === null ? { intervalsReason: skill.brierSkillScore === null ? "the scores could not be computed" : "no bootstrap resamples were asked for" } : {}),

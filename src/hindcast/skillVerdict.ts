@@ -15,12 +15,24 @@ export const SKILL_RULE =
  *
  * @param brierSkillScore - the hindcast Brier skill score, or null when it could not be computed.
  * @param skillPValue - the permutation p-value of that score, (b + 1)/(m + 1), or null when not computed.
+ * @param notTestedReason - why the chance test was not run although the scores exist (then the verdict says so).
  * @returns whether the method has skill, and the verdict sentence.
  * @example
  * skillVerdict(0.04, 0.012).hasSkill; // => true
  * skillVerdict(0.04, 0.2).hasSkill; // => false (chance reaches this score too often)
  */
-export function skillVerdict(brierSkillScore: number | null, skillPValue: number | null): { hasSkill: boolean; text: string } {
+export function skillVerdict(
+  brierSkillScore: number | null,
+  skillPValue: number | null,
+  notTestedReason?: string,
+): { hasSkill: boolean; text: string } {
+  if (brierSkillScore !== null && skillPValue === null && notTestedReason !== undefined) {
+    // The scores exist but the chance test was not run: say so, rather than "too little data".
+    return {
+      hasSkill: false,
+      text: `Not tested against chance (${notTestedReason}): the hindcast scores are shown, but without the chance test they cannot show skill. Treat the odds as no better than the average year.`,
+    };
+  }
   if (brierSkillScore === null || skillPValue === null) {
     return {
       hasSkill: false,

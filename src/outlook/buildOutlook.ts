@@ -283,7 +283,10 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   const strength = curveOdds === null ? null : strengthNote(curveOdds, calibration, training, indexValues, currentPhase, jointMaxQ);
   const fireYearWithComparison = {
     ...fireYear,
-    comparedWithBase: comparedWithBase(fireYear, calibration.baseRate),
+    // Compared by the wider, selection-aware interval when there is one: it allows for the rule's
+    // choice of index, which the cell's own interval does not (the chance audit's point).
+    comparedWithBase: comparedWithBase(selection.interval === null ? fireYear : { estimate: fireYear.estimate, ...widest(fireYear, selection.interval) }, calibration.baseRate),
+    comparedUsing: selection.interval === null ? ("interval" as const) : ("selection-aware interval" as const),
     response: curveHeadline ? ("curve" as const) : ("phase" as const),
     phaseOdds,
     curveOdds,
@@ -410,4 +413,14 @@ function monthSpan(months: readonly string[]): string {
   const first = months[0] as string;
   const last = months[months.length - 1] as string;
   return first === last ? label(first) : `${label(first)}–${label(last)}`;
+}
+
+/** The union of two intervals (the wider reach on each side), for a cautious comparison. */
+function widest(
+  a: { readonly lower: number | null; readonly upper: number | null },
+  b: { readonly lower: number | null; readonly upper: number | null },
+): { lower: number | null; upper: number | null } {
+  const pick = (x: number | null, y: number | null, choose: (u: number, v: number) => number): number | null =>
+    x === null ? y : y === null ? x : choose(x, y);
+  return { lower: pick(a.lower, b.lower, Math.min), upper: pick(a.upper, b.upper, Math.max) };
 }

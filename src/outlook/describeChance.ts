@@ -99,17 +99,27 @@ export function comparedWithBase(fireYear: Chance, baseRate: Chance): "higher" |
 }
 
 /** One plain sentence on how this season compares with an average year, given {@link comparedWithBase}. */
-export function comparisonSentence(fireYear: Chance & { readonly basisIndices?: readonly string[] }, baseRate: Chance): string {
+export function comparisonSentence(
+  fireYear: Chance & {
+    readonly basisIndices?: readonly string[];
+    readonly comparedWithBase?: "higher" | "lower" | "not distinguishable";
+    readonly comparedUsing?: "interval" | "selection-aware interval";
+  },
+  baseRate: Chance,
+): string {
   if (fireYear.basisIndices !== undefined && fireYear.basisIndices.length === 0) {
     return "These are the average-year odds: no index phase of this season could be read from past years.";
   }
-  switch (comparedWithBase(fireYear, baseRate)) {
+  const selection = fireYear.comparedUsing === "selection-aware interval";
+  switch (fireYear.comparedWithBase ?? comparedWithBase(fireYear, baseRate)) {
     case "higher":
-      return "The odds are higher than in an average year, beyond the uncertainty of both.";
+      return `The odds are higher than in an average year, beyond the uncertainty of both${selection ? " (also allowing for the rule's choice of index)" : ""}.`;
     case "lower":
-      return "The odds are lower than in an average year, beyond the uncertainty of both.";
+      return `The odds are lower than in an average year, beyond the uncertainty of both${selection ? " (also allowing for the rule's choice of index)" : ""}.`;
     default:
-      return "The two intervals overlap: this season may not differ from an average year.";
+      return selection && comparedWithBase(fireYear, baseRate) !== "not distinguishable"
+        ? "Allowing for the rule's choice of index, the interval reaches the average year: this season may not differ from an average year."
+        : "The two intervals overlap: this season may not differ from an average year.";
   }
 }
 

@@ -85,6 +85,8 @@ export interface Outlook {
     readonly fireYears: number;
     /** "higher" / "lower" when the 95% interval excludes the base rate, else "not distinguishable". */
     readonly comparedWithBase: "higher" | "lower" | "not distinguishable";
+    /** Which interval of this season's chance the comparison used (the selection-aware one when there is one). */
+    readonly comparedUsing?: "interval" | "selection-aware interval";
     /** Which form gave the headline (`methods.response`); buildOutlook always fills the fields below. */
     readonly response?: "phase" | "curve";
     /** The phase rule's odds (the headline itself when response is "phase"). */

@@ -19,6 +19,13 @@ describe("skillVerdict(brierSkillScore, skillPValue)", () => {
     expect(skillVerdict(0.2, null).hasSkill).toBe(false);
   });
 
+  it("skillVerdict(0.1, null, reason) says the chance test was not run, and why, instead of 'too little data'", () => {
+    const verdict = skillVerdict(0.1, null, "the record is too long for the curve rule's shuffles");
+    expect(verdict.hasSkill).toBe(false);
+    expect(verdict.text).toMatch(/^Not tested against chance \(the record is too long for the curve rule's shuffles\)/);
+    expect(skillVerdict(0.1, null).text).toMatch(/^No skill shown/);
+  });
+
   it("SKILL_RULE states both conditions in words", () => {
     expect(SKILL_RULE).toMatch(/Brier skill score is above 0/);
     expect(SKILL_RULE).toMatch(/at most 0\.05/);
