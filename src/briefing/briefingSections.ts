@@ -71,13 +71,58 @@ export interface HindcastExtras {
  * hindcastExtras(outlook.hindcast, calibration).chanceText; // => "Chance test: permutation p = 0.001 …"
  * @see Phipson B., Smyth G.K. (2010) "Permutation p-values should never be zero", Statistical Applications in Genetics and Molecular Biology 9(1):39.
  */
+/** "p = 0.03" or "p < 0.001". */
+function pText(p: number): string {
+  const text = formatPValue(p);
+  return text.startsWith("<") ? `p < ${text.slice(1)}` : `p = ${text}`;
+}
+
+/**
+ * The chance test in a few plain words for page 1: "shuffled fire records rarely scored as well
+ * (chance test p = 0.004)", or why there is no chance test.
+ *
+ * @param skill - the outlook's hindcast.
+ * @returns one clause without a closing full stop.
+ * @throws never.
+ * @example
+ * chanceClause(outlook.hindcast); // => "shuffled fire records rarely scored as well (chance test p = 0.004)"
+ * @see Phipson B., Smyth G.K. (2010) "Permutation p-values should never be zero", Statistical Applications in Genetics and Molecular Biology 9(1):39.
+ */
+export function chanceClause(skill: Skill): string {
+  const p = skill.skillPValue;
+  if (!isFiniteNumber(p)) return `chance test: ${missing(skill.skillPValueReason)}`;
+  return `shuffled fire records ${p <= 0.05 ? "rarely" : "often"} scored as well (chance test ${pText(p)})`;
+}
+
+/**
+ * How large the skill is, from the block-bootstrap interval of the Brier skill score: with a
+ * skill verdict and an interval reaching below 0, "small and uncertain in size"; "" when there is
+ * no interval or no skill verdict.
+ *
+ * @param skill - the outlook's hindcast.
+ * @returns one sentence, or "".
+ * @throws never.
+ * @example
+ * skillSizeText(outlook.hindcast); // => "Its size is small and uncertain: the 95% interval of the Brier skill score, −0.02 to +0.12, reaches below 0."
+ * @see Künsch H.R. (1989) "The jackknife and the bootstrap for general stationary observations", Annals of Statistics 17(3):1217–1241.
+ */
+export function skillSizeText(skill: Skill): string {
+  const interval = skill.intervals?.brierSkillScore;
+  const text = range(interval, 2);
+  if (!skill.hasSkill || interval === null || interval === undefined || text === "") return "";
+  const level = Math.round((skill.intervals?.level ?? 0.95) * 100);
+  return interval[0] < 0
+    ? `Its size is small and uncertain: the ${level}% interval of the Brier skill score, ${text}, reaches below 0.`
+    : `Its size: the ${level}% interval of the Brier skill score is ${text}.`;
+}
+
 export function hindcastExtras(skill: Skill, calibration: Calibration): HindcastExtras {
   const p = skill.skillPValue;
   const chanceText = isFiniteNumber(p)
-    ? `Chance test: in ${formatCount(skill.permutations ?? 0)} shuffles of the fire record across years` +
+    ? `The verdict rests on the chance test: in ${formatCount(skill.permutations ?? 0)} shuffles of the fire record across years` +
       (isFiniteNumber(skill.permutationBlockYears) ? ` (in blocks of ${skill.permutationBlockYears} years)` : "") +
-      `, the whole hindcast rerun each time, ${p <= 0.05 ? "few" : "many"} scored as well as the real record: permutation p ${formatPValue(p).startsWith("<") ? `< ${formatPValue(p).slice(1)}` : `= ${formatPValue(p)}`}` +
-      ` (the share of shuffles at least as good, counting the real record; skill needs p at most 0.05).`
+      `, the whole hindcast rerun each time, ${p <= 0.05 ? "few" : "many"} scored as well as the real record: permutation ${pText(p)}` +
+      ` (the share of shuffles at least as good, counting the real record; skill needs p at most 0.05). ${skillSizeText(skill)}`.trimEnd()
     : `Chance test: ${missing(skill.skillPValueReason)}.`;
   const intervals = skill.intervals;
   const intervalRows =
@@ -91,7 +136,11 @@ export function hindcastExtras(skill: Skill, calibration: Calibration): Hindcast
   const intervalsNote =
     intervals === null || intervals === undefined
       ? `Intervals of the scores: ${missing(skill.intervalsReason)}.`
-      : `${Math.round((intervals.level ?? 0.95) * 100)}% intervals from a moving-block bootstrap of the hindcast years (blocks of ${intervals.blockYears} years, ${formatCount(intervals.resamples)} resamples), so years that follow each other are kept together. An interval that reaches below 0 (or 0.5 for the ROC area) means the record cannot rule out no skill.`;
+      : `${Math.round((intervals.level ?? 0.95) * 100)}% intervals from a moving-block bootstrap of the hindcast years (blocks of ${intervals.blockYears} years, ${formatCount(intervals.resamples)} resamples), so years that follow each other are kept together. ` +
+        "The verdict rests on the chance test above; these intervals say how large the skill is. " +
+        (skill.hasSkill
+          ? "An interval that reaches below 0 (or below 0.5 for the ROC area) means the skill is small and uncertain in size."
+          : "An interval that reaches below 0 (or below 0.5 for the ROC area) fits the verdict: no clear skill.");
 
   const corp = skill.corp;
   const corpView =

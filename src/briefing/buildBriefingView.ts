@@ -22,6 +22,7 @@ import { markdownBlocks, type MarkdownBlock } from "./markdownBlocks.js";
 import { METHOD_CITATIONS, type MethodCitation } from "./methodCitations.js";
 import { trustSvg, type TrustedMarkup } from "./trustedMarkup.js";
 import {
+  chanceClause,
   curveView,
   type CurveView,
   hindcastExtras,
@@ -29,6 +30,7 @@ import {
   modernLine,
   pastOutlooksView,
   type PastOutlooksView,
+  skillSizeText,
   sinceLastView,
   type SinceLastView,
   summarizeWarnings,
@@ -143,7 +145,7 @@ export interface BriefingView {
       readonly scaleText: string;
       /** True when the value is computed from part of its window only. */
       readonly provisional: boolean;
-      /** "provisional: 3 of the window's months so far (2026-12 to 2027-02)"; empty when not provisional. */
+      /** "3 of 4 months so far (Dec 2026–Feb 2027); the odds may change"; empty when not provisional. */
       readonly provisionalText: string;
     }[];
     readonly missingText: string | null;
@@ -190,6 +192,10 @@ export interface BriefingView {
   };
   readonly timeline: { readonly chart: TrustedMarkup; readonly caption: string };
   readonly hindcast: {
+    /** False when no current index value is used: the outlook is the average year, and no hindcast score or chart is printed. */
+    readonly applies: boolean;
+    /** Why the hindcast does not apply (printed instead of the scores); "" when it applies. */
+    readonly notApplicableText: string;
     readonly available: boolean;
     readonly missingText: string | null;
     readonly verdict: string;
@@ -322,6 +328,46 @@ function chanceComparison(chance: number | null, base: number | null): string {
   if (ratio <= 0.8) return `That is lower than in an average year (about ${formatDecimal(ratio, 1)} times the average chance).`;
   // Between 0.8 and 1.25 times: no ratio sentence (it would read "close to average" beside "higher").
   return "";
+}
+
+const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+
+/** "2026-12" → "Dec 2026" (other text unchanged). */
+function monthLabel(text: string): string {
+  const match = /^(-?\d{1,6})-(\d{2})$/.exec(text);
+  const name = match === null ? undefined : MONTHS[Number(match[2]) - 1];
+  return match === null || name === undefined ? text : `${name} ${match[1]}`;
+}
+
+/** "Dec 2026–Feb 2027" from the first and last of "YYYY-MM" months; one month alone when they agree. */
+function monthSpan(months: readonly string[]): string {
+  const first = months[0];
+  const last = months[months.length - 1];
+  if (first === undefined || last === undefined) return "";
+  return first === last ? monthLabel(first) : `${monthLabel(first)}\u2013${monthLabel(last)}`;
+}
+
+/** Months in a window such as "Dec-Mar" (wrapping the year end), or null when it is not two month names. */
+function windowLength(window: string | null): number | null {
+  if (window === null) return null;
+  const parts = window.split(/[-\u2013]/).map((part) => MONTHS.indexOf(part.trim().slice(0, 3)));
+  const [a, b] = parts;
+  if (parts.length !== 2 || a === undefined || b === undefined || a < 0 || b < 0) return null;
+  return ((b - a + 12) % 12) + 1;
+}
+
+/**
+ * A warning or note as printed: one minus sign (U+2212) before every number, month windows with an
+ * en dash ("Dec–Mar"), values rounded to the 2 decimals the tables show, one closing full stop.
+ */
+export function printedText(text: string): string {
+  const months = MONTHS.join("|");
+  return sentence(
+    text
+      .replace(/(=\s*)(-?\d+\.\d{3,})(?![\d.])/g, (_all, lead: string, value: string) => `${lead}${formatDecimal(Number(value), 2)}`)
+      .replace(new RegExp(`\\b(${months})-(${months})\\b`, "g"), "$1\u2013$2")
+      .replace(/(^|[\s(=:;,[])-(?=\.?\d)/g, "$1\u2212"),
+  );
 }
 
 function lastYearWithValue(series: { years: readonly number[]; values: readonly (number | null)[] }): number | null {
@@ -535,9 +581,19 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     lastRecordYear = lastRecordYear === null ? row.year : Math.max(lastRecordYear, row.year);
     if (row.sitesRecording >= settings.fireYears.minSitesRecording) lastUsableYear = lastUsableYear === null ? row.year : Math.max(lastUsableYear, row.year);
   }
+  // A monthly index states its last month with a value ("Feb 2027"); a yearly index its last year.
   const indexLast = workspace.indices
-    .map((series) => ({ name: series.name, last: lastYearWithValue(series) }))
-    .filter((entry): entry is { name: string; last: number } => entry.last !== null);
+    .map((series) => {
+      const months = (series.monthly ?? []).filter((month) => month.value !== null);
+      const lastMonth = months.reduce<{ year: number; month: number } | null>(
+        (latest, month) => (latest === null || month.year * 12 + month.month > latest.year * 12 + latest.month ? month : latest),
+        null,
+      );
+      const lastYear = lastYearWithValue(series);
+      const last = lastMonth !== null ? `${MONTHS[lastMonth.month - 1] ?? lastMonth.month} ${lastMonth.year}` : lastYear === null ? null : String(lastYear);
+      return { name: series.name, last };
+    })
+    .filter((entry): entry is { name: string; last: string } => entry.last !== null);
   const indexLastYears = [...new Set(indexLast.map((entry) => entry.last))];
   const indexThrough =
     indexLast.length === 0
@@ -795,12 +851,12 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
           provisionalText: !provisional
             ? ""
             : months.length === 0
-              ? "provisional: the season's months are not all in yet"
-              : `${plural(months.length, "month", "months")} so far (${months[0]}${months.length > 1 ? ` to ${months[months.length - 1]}` : ""})`,
+              ? "The season's months are not all in yet; the odds may change."
+              : `${windowLength(window) === null ? plural(months.length, "month", "months") : `${formatCount(months.length)} of ${plural(windowLength(window) ?? 0, "month", "months")}`} so far (${monthSpan(months)}); the odds may change.`,
           note: phase.nearBoundary
             ? isFiniteNumber(margin)
-              ? `within ${formatNumber(margin, 2)} of a cut (${formatDecimal(methods.nearBoundarySd, 2)} SD): a small change would change the phase`
-              : "near a cut: a small change would change the phase"
+              ? `Within ${formatNumber(margin, 2)} of a cut (${formatDecimal(methods.nearBoundarySd, 2)} SD): a small change would change the phase.`
+              : "Near a cut: a small change would change the phase."
             : "",
         };
       }),
@@ -816,7 +872,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         : hindcastAvailable
         ? `Tested on ${plural(skill.years, "past year", "past years")}, each forecast without itself and ${skill.exclusion} years either side: ` +
           `Brier skill score ${skill.brierSkillScore === null ? NOT_ENOUGH_DATA : signed(skill.brierSkillScore, 2)}, ` +
-          `ROC area ${skill.rocArea === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rocArea, 2)}.`
+          `ROC area ${skill.rocArea === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rocArea, 2)}; ${chanceClause(skill)}.` +
+          (skillSizeText(skill) === "" ? "" : ` ${skillSizeText(skill)}`)
         : `Hindcast scores: ${missing(skill.reason)}.`,
     },
     howToRead: [
@@ -833,7 +890,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       `The odds describe ${period.first}–${period.last}; land use, fire suppression and climate have changed since, so the past may not repeat.`,
       "Even at higher odds most seasons are not high-fire years, and a quiet outlook does not mean a quiet season.",
     ],
-    readWithCare: outlook.warnings.map((warning) => sentence(warning.message)),
+    // A provisional value is said in the index table (tag and months), not again here.
+    readWithCare: outlook.warnings.filter((warning) => warning.code !== "value-provisional").map((warning) => printedText(warning.message)),
     indices: calibration.indices.map((index) => buildIndexView(index, calibration, outlook, valueMap(index.name))),
     analogs: {
       available: outlook.analogs.length > 0,
@@ -886,6 +944,12 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         `and are not used, however active. Years with fewer than ${settings.fireYears.minSitesRecording} recording sites are left out (the line breaks there).`,
     },
     hindcast: {
+      applies: skillApplies,
+      notApplicableText: skillApplies
+        ? ""
+        : "No current index value is used, so this season's outlook is the long-term average year and there is no index-based forecast to check. " +
+          "A hindcast of always forecasting the average year says nothing about the method's skill, so no scores or charts are shown here. " +
+          "Give this season's index values to see how the method did on past years.",
       available: hindcastAvailable,
       missingText: hindcastAvailable ? null : missing(skill.reason),
       verdict: skill.verdict,
@@ -917,7 +981,7 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
           score: "Ranked probability skill score",
           value: skill.rpss === null ? NOT_ENOUGH_DATA : signed(skill.rpss, 2),
           meaning:
-            "above 0: better than always forecasting the average-year shares of the three categories (the realised shares of the years left in for each forecast)",
+            "above 0: better than always forecasting the average-year shares of the three categories (their shares over the whole calibration period, the same for every forecast)",
         },
         {
           score: "ROC area",

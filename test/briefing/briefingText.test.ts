@@ -199,7 +199,7 @@ describe("buildBriefingView(inputs)", () => {
     expect(view.categories.chart.trustedMarkup).not.toContain("Equal odds");
     expect(view.categories.chart.trustedMarkup).toContain('class="average-year"');
     const rpss = view.hindcast.scores.find((score) => score.score === "Ranked probability skill score");
-    expect(rpss?.meaning).toContain("average-year shares of the three categories (the realised shares of the years left in");
+    expect(rpss?.meaning).toContain("average-year shares of the three categories (their shares over the whole calibration period");
     expect(rpss?.meaning).not.toMatch(/one in three/);
   });
   it("says where each current value came from", () => {

@@ -45,6 +45,27 @@ describe("the printed briefing", () => {
     expect(pages[1]!.replace(/\s+/g, " ")).not.toContain("Cautions");
   }, 120_000);
 
+  it("keeps page 1, index table included, on one page on A4 and Letter with two provisional values and a near-boundary row", async () => {
+    const warnings = [
+      { code: "basis-near-boundary", message: "NAO = -0.46 is within 0.08 of a phase cut: a small change in it would change the odds" },
+      { code: "no-clear-link", message: "NAO shows no clear link with high-fire years (chi-square q = 0.41)" },
+    ];
+    for (const paper of ["a4", "letter"] as const) {
+      const { view, pages } = await print({ provisional: true, outlookWarnings: warnings }, paper);
+      // The provisional detail is in the index table, not repeated in "Read with care".
+      expect(view.readWithCare.some((line) => line.includes("provisional"))).toBe(false);
+      expect(view.readWithCare[0]).toBe("NAO = \u22120.46 is within 0.08 of a phase cut: a small change in it would change the odds.");
+      const first = pages[0]!.replace(/\s+/g, " ");
+      expect(first, paper).toContain("Read with care");
+      expect(first, paper).toContain("This winter–spring’s index phases");
+      expect(first, paper).toContain("2 of 3 months so far (Dec 2026–Jan 2027)");
+      // The last row of the index table and the footnote under it are on page 1 too.
+      expect(first, paper).toContain("Where this season's values came from");
+      expect(pages[1]!.replace(/\s+/g, " "), paper).not.toContain("Where this season's values came from");
+      expect(pages[1]!.replace(/\s+/g, " "), paper).not.toContain("months so far");
+    }
+  }, 180_000);
+
   it("prints the band's words in the style sheet exactly as the view says them", () => {
     const css = briefingStyleSheet();
     const content = /@top-center\s*\{[^}]*content:\s*"([^"]+)"/.exec(css)?.[1] ?? "";

@@ -25,6 +25,8 @@ export interface SampleOptions {
   readonly outlookWarnings?: readonly { readonly code: string; readonly message: string }[];
   /** A tie rule that ends with a full stop, as the calibration writes it. */
   readonly tieRule?: string;
+  /** Both current values provisional (part of their Dec–Feb window), with the outlook's two provisional warnings. */
+  readonly provisional?: boolean;
 }
 
 export interface SampleBriefingInputs {
@@ -238,8 +240,25 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
     current: options.noCurrentValues
       ? []
       : [
-          { index: "ENSO", value: 1.2, label: options.ensoLabels?.[2] ?? "warm", nearBoundary: false, z: 1.4, source: "region.json" },
-          { index: "NAO", value: 0.46, label: "positive", nearBoundary: true, z: 0.5, source: "--values" },
+          {
+            index: "ENSO",
+            value: 1.2,
+            label: options.ensoLabels?.[2] ?? "warm",
+            nearBoundary: false,
+            z: 1.4,
+            source: "region.json",
+            ...(options.provisional === true ? { provisional: true, months: ["2026-12", "2027-01"], window: "Dec-Feb" } : {}),
+          },
+          {
+            index: "NAO",
+            value: 0.46,
+            label: "positive",
+            nearBoundary: true,
+            z: 0.5,
+            source: "--values",
+            nearBoundaryMargin: 0.08,
+            ...(options.provisional === true ? { provisional: true, months: ["2026-12", "2027-01"], window: "Dec-Feb" } : {}),
+          },
         ],
     missing: options.noCurrentValues ? ["ENSO", "NAO"] : [],
     fireYear: { ...fireYearEstimate, basis: "the ENSO warm phase", basisIndices: ["ENSO"], years: 83, fireYears: 17, comparedWithBase: "not distinguishable" },
@@ -268,7 +287,15 @@ export function sampleBriefingInputs(options: SampleOptions = {}): SampleBriefin
           verdict: "No current index values were given, so these are the long-term average odds; a skill score does not apply to them.",
         }
       : skill,
-    warnings: options.outlookWarnings ?? [],
+    warnings: [
+      ...(options.provisional === true
+        ? [
+            { code: "value-provisional", message: "ENSO = 1.2 is provisional: computed from Dec 2026–Jan 2027 of its Dec-Feb window, which is not complete yet; the odds may change when it is" },
+            { code: "value-provisional", message: "NAO = 0.4612 is provisional: computed from Dec 2026–Jan 2027 of its Dec-Feb window, which is not complete yet; the odds may change when it is" },
+          ]
+        : []),
+      ...(options.outlookWarnings ?? []),
+    ],
   };
 
   const workspace: Workspace = {
