@@ -357,8 +357,16 @@ function windowLength(window: string | null): number | null {
 }
 
 /**
- * A warning or note as printed: one minus sign (U+2212) before every number, month windows with an
- * en dash ("Dec–Mar"), values rounded to the 2 decimals the tables show, one closing full stop.
+ * Printed form of a warning or note: one minus sign (U+2212) before every number, month windows
+ * with an en dash ("Dec–Mar"), a value after "=" with three or more decimals rounded to the 2 the
+ * tables show, first letter capital and one closing full stop.
+ *
+ * @param text - a plain-language message (any length; may be empty).
+ * @returns the message as printed; "" for empty or blank text.
+ * @throws never.
+ * @example
+ * printedText("WSI = -0.245 is provisional"); // => "WSI = −0.24 is provisional."
+ * @see The Unicode Consortium (2023) The Unicode Standard 15.1, chapter 6 (U+2212 MINUS SIGN, U+2013 EN DASH).
  */
 export function printedText(text: string): string {
   const months = MONTHS.join("|");

@@ -1,12 +1,13 @@
 import { readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { buildBriefingView, describePhaseRule } from "../../src/briefing/buildBriefingView.js";
+import { buildBriefingView, describePhaseRule, printedText } from "../../src/briefing/buildBriefingView.js";
 import { clipText, formatCount, formatDecimal, formatLongDate, formatMoment, formatPValue } from "../../src/briefing/formatValues.js";
 import { inlineRuns, markdownBlocks } from "../../src/briefing/markdownBlocks.js";
 import { renderBriefingHtml, TEMPLATES_DIR } from "../../src/briefing/renderBriefingHtml.js";
 import { trustCss, trustSvg } from "../../src/briefing/trustedMarkup.js";
 import { escapeHtml } from "../../src/briefing/escapeHtml.js";
+import { DEFAULT_METHODS } from "../../src/workspace/defaults.js";
 import { SAMPLE_SAFETY_MARKDOWN, sampleBriefingInputs } from "./sampleBriefingInputs.js";
 
 describe("formatValues", () => {
@@ -237,6 +238,48 @@ describe("buildBriefingView(inputs)", () => {
     const html = renderBriefingHtml(average);
     expect(html).toContain("skill-na");
     expect(html).not.toContain("the method showed no skill");
+  });
+  it("with no current values, the hindcast section says it does not apply and prints no scores or charts", () => {
+    const average = buildBriefingView({ ...sampleBriefingInputs({ noCurrentValues: true }), toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
+    expect(average.hindcast.applies).toBe(false);
+    const html = renderBriefingHtml(average);
+    const section = html.slice(html.indexOf('<section class="hindcast">'), html.indexOf("</section>", html.indexOf('<section class="hindcast">')));
+    expect(section).toContain("Does not apply this season.");
+    expect(section).toContain("long-term average year");
+    expect(section).not.toContain("ROC curve");
+    expect(section).not.toContain("How sure are the scores?");
+    expect(section).not.toContain("<svg");
+    expect(view.hindcast.applies).toBe(true);
+    expect(renderBriefingHtml(view)).toContain("How sure are the scores?");
+  });
+  it("rests the skill verdict on the chance test and reads a bootstrap interval below 0 as a small, uncertain size, on page 1 and the hindcast page", () => {
+    const base = sampleBriefingInputs({});
+    const hindcast = {
+      ...base.outlook.hindcast,
+      skillPValue: 0.004,
+      permutations: 999,
+      permutationBlockYears: 5,
+      intervals: { brierSkillScore: [-0.012, 0.114] as [number, number], rpss: [-0.02, 0.15] as [number, number], rocArea: [0.49, 0.71] as [number, number], level: 0.95, blockYears: 5, resamples: 999, method: "moving-block bootstrap of the hindcast years" },
+    };
+    const tested = buildBriefingView({ ...base, outlook: { ...base.outlook, hindcast }, toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
+    expect(tested.skill.summary).toContain("ROC area 0.68; shuffled fire records rarely scored as well (chance test p = 0.004).");
+    expect(tested.skill.summary).toContain("Its size is small and uncertain: the 95% interval of the Brier skill score, \u22120.01 to +0.11, reaches below 0.");
+    expect(tested.hindcast.extras.chanceText).toMatch(/^The verdict rests on the chance test: in 999 shuffles/);
+    expect(tested.hindcast.extras.intervalsNote).toContain("means the skill is small and uncertain in size");
+    expect(tested.hindcast.extras.intervalsNote).not.toMatch(/cannot rule out/);
+  });
+  it("prints warnings with one minus sign, en-dash month windows, table precision and a closing full stop", () => {
+    expect(printedText("WSI = -0.245 is provisional: computed from Dec 2026–Jan 2027 of its Dec-Feb window")).toBe(
+      "WSI = \u22120.24 is provisional: computed from Dec 2026–Jan 2027 of its Dec\u2013Feb window.",
+    );
+    expect(printedText("lags -2 to -1 (p = 0.01); high-fire years")).toBe("Lags \u22122 to \u22121 (p = 0.01); high-fire years.");
+    expect(printedText("a well-known, non-numeric dash")).toBe("A well-known, non-numeric dash.");
+  });
+  it("states provisional months as 'N of M months so far (Mon YYYY–Mon YYYY)' and monthly indices by their last month", () => {
+    const provisional = buildBriefingView({ ...sampleBriefingInputs({ provisional: true }), toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
+    expect(provisional.currentPhases.rows[0]?.provisionalText).toBe("2 of 3 months so far (Dec 2026–Jan 2027); the odds may change.");
+    expect(provisional.currentPhases.rows[1]?.note).toBe(`Within 0.08 of a cut (${formatDecimal(DEFAULT_METHODS.nearBoundarySd, 2)} SD): a small change would change the phase.`);
+    expect(provisional.readWithCare).toEqual([]);
   });
   it("joins the tie rule as its own sentence in the settings (no '.;')", () => {
     const tied = buildBriefingView({
