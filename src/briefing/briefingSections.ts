@@ -100,17 +100,20 @@ export function chanceClause(skill: Skill): string {
  * no interval or no skill verdict.
  *
  * @param skill - the outlook's hindcast.
- * @returns one sentence, or "".
+ * @param short - true for page 1's bracket after the score, " (95% interval −0.02 to +0.12: small and uncertain in size)".
+ * @returns one sentence (or the bracket), or "".
  * @throws never.
  * @example
  * skillSizeText(outlook.hindcast); // => "Its size is small and uncertain: the 95% interval of the Brier skill score, −0.02 to +0.12, reaches below 0."
  * @see Künsch H.R. (1989) "The jackknife and the bootstrap for general stationary observations", Annals of Statistics 17(3):1217–1241.
  */
-export function skillSizeText(skill: Skill): string {
+export function skillSizeText(skill: Skill, short = false): string {
   const interval = skill.intervals?.brierSkillScore;
   const text = range(interval, 2);
-  if (!skill.hasSkill || interval === null || interval === undefined || text === "") return "";
+  if (interval === null || interval === undefined || text === "") return "";
   const level = Math.round((skill.intervals?.level ?? 0.95) * 100);
+  if (short) return ` (${level}% interval ${text}${skill.hasSkill && interval[0] < 0 ? ": small and uncertain in size" : ""})`;
+  if (!skill.hasSkill) return "";
   return interval[0] < 0
     ? `Its size is small and uncertain: the ${level}% interval of the Brier skill score, ${text}, reaches below 0.`
     : `Its size: the ${level}% interval of the Brier skill score is ${text}.`;
@@ -225,7 +228,7 @@ export function curveView(index: IndexCalibration, years: readonly { readonly va
       shown: false,
       chart: null,
       caption: "",
-      missingText: `No response curve is drawn for ${index.name}: its fit shows no clear link (likelihood-ratio p = ${formatPValue(curve.pValue)}${isFiniteNumber(curve.qValue) ? `, q = ${formatPValue(curve.qValue)} across indices` : ""}).`,
+      missingText: `No response curve is drawn for ${index.name}: its fit shows no clear link (likelihood-ratio ${pText(curve.pValue)}${isFiniteNumber(curve.qValue) ? `, ${pText(curve.qValue).replace(/^p/, "q")} across indices` : ""}).`,
     };
   }
   const chart = responseCurveChart({
@@ -241,7 +244,7 @@ export function curveView(index: IndexCalibration, years: readonly { readonly va
     chart: trustSvg(chart),
     caption:
       `How the chance of a high-fire year rises or falls with the ${index.name} value: a logistic regression on ${plural(curve.years, "calibration year", "calibration years")} ` +
-      `(${formatCount(curve.fireYears)} high-fire), ${curve.method}, likelihood-ratio p = ${formatPValue(curve.pValue)}${isFiniteNumber(curve.qValue) ? ` (q = ${formatPValue(curve.qValue)}, false discovery rate across indices)` : ""}; the band is ${curve.band}. ` +
+      `(${formatCount(curve.fireYears)} high-fire), ${curve.method}, likelihood-ratio ${pText(curve.pValue)}${isFiniteNumber(curve.qValue) ? ` (${pText(curve.qValue).replace(/^p/, "q")}, false discovery rate across indices)` : ""}; the band is ${curve.band}. ` +
       `Ticks under the curve are the past years (taller: high-fire years); the curve is not read beyond the record's range (${formatDecimal(curve.range.min, 2)} to ${formatDecimal(curve.range.max, 2)}).` +
       (curve.separation ? " The record separates high-fire years completely at some value, so the penalized (Firth) fit is shown." : ""),
     missingText: "",

@@ -369,12 +369,17 @@ function windowLength(window: string | null): number | null {
  * @see The Unicode Consortium (2023) The Unicode Standard 15.1, chapter 6 (U+2212 MINUS SIGN, U+2013 EN DASH).
  */
 export function printedText(text: string): string {
+  return sentence(printedNumbers(text));
+}
+
+/** {@link printedText} without the capital and full stop (for notes that start with a file path). */
+function printedNumbers(text: string): string {
   const months = MONTHS.join("|");
-  return sentence(
+  return (
     text
       .replace(/(=\s*)(-?\d+\.\d{3,})(?![\d.])/g, (_all, lead: string, value: string) => `${lead}${formatDecimal(Number(value), 2)}`)
       .replace(new RegExp(`\\b(${months})-(${months})\\b`, "g"), "$1\u2013$2")
-      .replace(/(^|[\s(=:;,[])-(?=\.?\d)/g, "$1\u2212"),
+      .replace(/(^|[\s(=:;,[])-(?=\.?\d)/g, "$1\u2212")
   );
 }
 
@@ -440,6 +445,7 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
   const sea = index.sea;
   const seaAvailable = sea.mean.some((value) => value !== null);
   const outside: string[] = [];
+  const clearEarlierLags: number[] = [];
   sea.lags.forEach((lag, i) => {
     const mean = sea.mean[i];
     const ci95 = sea.ci95[i];
@@ -447,6 +453,7 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
     if (mean < ci95[0] || mean > ci95[1]) {
       const p = sea.pValue[i];
       const q = sea.qValue[i];
+      if (lag !== 0 && isFiniteNumber(q) && q <= 0.05) clearEarlierLags.push(lag);
       outside.push(
         `lag ${signed(lag, 0)} (${signed(mean, 2)}` +
           (p === null || p === undefined ? "" : `, ${pEquals("p", p)}`) +
@@ -524,7 +531,11 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
           ? ""
           : outside.length === 0
             ? "No lag lies beyond the 95% chance envelope."
-            : `Beyond the 95% chance envelope: ${outside.join("; ")}.`,
+            : `Beyond the 95% chance envelope: ${outside.join("; ")}.` +
+              (clearEarlierLags.length === 0
+                ? ""
+                : ` The outlook uses only this winter's ${index.name} value (lag 0), so a link at ${clearEarlierLags.length === 1 ? "lag" : "lags"} ` +
+                  `${clearEarlierLags.map((lag) => signed(lag, 0)).join(", ")} (through ${clearEarlierLags.every((lag) => lag < 0) ? "an earlier" : "another"} winter) is shown here but not used in the odds.`),
     },
     aggregated: {
       available: aggregatedAvailable,
@@ -707,7 +718,10 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
     noteCodes.push(warning.code);
   }
   // Many close site pairs are summarized (count and the closest); the full list stays in check --json.
-  const dataNotes = [...summarizeWarnings(noteMessages, noteCodes, 5).notes];
+  const dataNotes = summarizeWarnings(noteMessages, noteCodes, 5).notes.map((note) => {
+    const text = printedNumbers(note).trim();
+    return text === "" || /[.!?]$/.test(text) ? text : `${text}.`;
+  });
 
   const curveOdds = outlook.fireYear.curveOdds ?? null;
   const phaseOdds = outlook.fireYear.phaseOdds;
@@ -879,9 +893,8 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         ? "With no index values there is no index-based forecast to verify."
         : hindcastAvailable
         ? `Tested on ${plural(skill.years, "past year", "past years")}, each forecast without itself and ${skill.exclusion} years either side: ` +
-          `Brier skill score ${skill.brierSkillScore === null ? NOT_ENOUGH_DATA : signed(skill.brierSkillScore, 2)}, ` +
-          `ROC area ${skill.rocArea === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rocArea, 2)}; ${chanceClause(skill)}.` +
-          (skillSizeText(skill) === "" ? "" : ` ${skillSizeText(skill)}`)
+          `Brier skill score ${skill.brierSkillScore === null ? NOT_ENOUGH_DATA : signed(skill.brierSkillScore, 2)}${skillSizeText(skill, true)}, ` +
+          `ROC area ${skill.rocArea === null ? NOT_ENOUGH_DATA : formatDecimal(skill.rocArea, 2)}; ${chanceClause(skill)}.`
         : `Hindcast scores: ${missing(skill.reason)}.`,
     },
     howToRead: [
@@ -1009,7 +1022,9 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       reliabilityChart: trustSvg(reliabilityDiagram({ bins: skill.reliability, climatology: calibration.baseRate.estimate ?? 0 })),
       rocChart: trustSvg(rocCurveChart({ points: skill.rocCurve, area: skill.rocArea })),
       caption:
-        "Reliability: when the method said a given chance, how often a high-fire year followed — the recalibrated curve of the hindcast's own forecasts; inside the band it is as reliable as chance allows. " +
+        `Reliability: when the method said a given chance, how often a high-fire year followed — the recalibrated curve of the hindcast's own forecasts; inside the ` +
+        (isFiniteNumber(skill.corp?.level) ? `${Math.round((skill.corp?.level ?? 0) * 100)}% ` : "") +
+        "band it is as reliable as chance allows. " +
         "ROC: hit rate against false-alarm rate over all probability thresholds.",
       extras: hindcastExtras(skill, calibration),
     },

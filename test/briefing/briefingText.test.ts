@@ -262,8 +262,10 @@ describe("buildBriefingView(inputs)", () => {
       intervals: { brierSkillScore: [-0.012, 0.114] as [number, number], rpss: [-0.02, 0.15] as [number, number], rocArea: [0.49, 0.71] as [number, number], level: 0.95, blockYears: 5, resamples: 999, method: "moving-block bootstrap of the hindcast years" },
     };
     const tested = buildBriefingView({ ...base, outlook: { ...base.outlook, hindcast }, toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
-    expect(tested.skill.summary).toContain("ROC area 0.68; shuffled fire records rarely scored as well (chance test p = 0.004).");
-    expect(tested.skill.summary).toContain("Its size is small and uncertain: the 95% interval of the Brier skill score, \u22120.01 to +0.11, reaches below 0.");
+    expect(tested.skill.summary).toContain(
+      "Brier skill score +0.09 (95% interval \u22120.01 to +0.11: small and uncertain in size), ROC area 0.68; shuffled fire records rarely scored as well (chance test p = 0.004).",
+    );
+    expect(tested.hindcast.extras.chanceText).toContain("Its size is small and uncertain: the 95% interval of the Brier skill score, \u22120.01 to +0.11, reaches below 0.");
     expect(tested.hindcast.extras.chanceText).toMatch(/^The verdict rests on the chance test: in 999 shuffles/);
     expect(tested.hindcast.extras.intervalsNote).toContain("means the skill is small and uncertain in size");
     expect(tested.hindcast.extras.intervalsNote).not.toMatch(/cannot rule out/);

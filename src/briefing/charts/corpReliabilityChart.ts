@@ -47,16 +47,17 @@ const MARGINS = { top: 14, right: 14, bottom: 64, left: 58 };
  * @throws RangeError when a width or height option is out of range.
  * @example
  * corpReliabilityChart({ points: [{ forecast: 0.1, calibrated: 0.08, count: 40 }, { forecast: 0.3, calibrated: 0.33, count: 12 }],
- *   band: [{ forecast: 0.1, lower: 0.05, upper: 0.16 }, { forecast: 0.3, lower: 0.12, upper: 0.5 }], level: 0.9, baseRate: 0.1 });
+ *   band: [{ forecast: 0.1, lower: 0.05, upper: 0.16 }, { forecast: 0.3, lower: 0.12, upper: 0.5 }], level: 0.95, baseRate: 0.1 });
  * // => '<svg xmlns="http://www.w3.org/2000/svg" …</svg>'
  * @see Dimitriadis T., Gneiting T., Jordan A.I. (2021) "Stable reliability diagrams for
  * probabilistic classifiers", Proceedings of the National Academy of Sciences 118(8):e2016191118.
  */
 export function corpReliabilityChart(input: Readonly<CorpReliabilityChartInput>, options?: ChartOptions): string {
-  const level = isDrawable(input.level) ? Math.round(input.level * 100) : 90;
+  // The level is read from the CORP result, never assumed: without one the legend names no level.
+  const level = isDrawable(input.level) && input.level > 0 && input.level < 1 ? `${Math.round(input.level * 100)}% ` : "";
   const entries: LegendEntry[] = [
     { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.estimate, "stroke-width": 2 })}/>`, label: "Recalibrated (PAV)" },
-    { symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.chance })}/>`, label: `${level}% band if calibrated` },
+    { symbol: `<rect${attrs({ x: -7, y: -5, width: 14, height: 10, fill: palette.chance })}/>`, label: `${level}band if calibrated` },
     { symbol: `<line${attrs({ x1: -8, x2: 8, y1: 0, y2: 0, stroke: palette.baseRate, "stroke-width": 1.6, "stroke-dasharray": "2 2" })}/>`, label: "Average year" },
   ];
   const frame = makeFrame(options, { width: 340, height: 300 }, (width) => ({ ...MARGINS, bottom: MARGINS.bottom + legendExtraHeight(entries, width) }));

@@ -37,6 +37,12 @@ describe("corpReliabilityChart", () => {
     const text = chartText(document);
     for (const label of ["Forecast chance of a high-fire year", "Recalibrated chance", "90% band if calibrated", "Average year", "Recalibrated (PAV)"]) expect(text).toContain(label);
   });
+  it("prints the band's level as given (95% here) and names no level when it is missing", () => {
+    expect(chartText(checkChartSvg(corpReliabilityChart({ ...input, level: 0.95 })))).toContain("95% band if calibrated");
+    const unknown = chartText(checkChartSvg(corpReliabilityChart({ ...input, level: Number.NaN })));
+    expect(unknown).toContain("band if calibrated");
+    expect(unknown).not.toMatch(/\d+% band/);
+  });
   it("the axes run 0 to 10% beyond the largest forecast or recalibrated value: 0–50% here", () => {
     const text = chartText(checkChartSvg(corpReliabilityChart(input)));
     expect(text).toContain("50%");
