@@ -315,7 +315,7 @@ export function thenAndNowView(calibration: Calibration): ThenAndNowView {
       `Does the link still hold under today's fire regime? The modern agency record (${modern.period.first}–${modern.period.last}, ${plural(modern.period.years, "year", "years")}) ` +
       `defines its own high-fire years: the top ${Math.round(modern.top * 100)}% by ${measure} ` +
       `(threshold ${isFiniteNumber(modern.threshold) ? formatCount(modern.threshold) : NOT_ENOUGH}${modern.measure === "area" ? " ha" : " fires"}; ${plural(modern.fireYears.length, "year", "years")}). ` +
-      `Its average year: ${formatPercent(modern.baseRate.estimate)} (95% interval ${formatPercentRange(modern.baseRate.lower, modern.baseRate.upper)}); the same phase cuts as the calibration.`,
+      `Its average year: ${formatPercent(modern.baseRate.estimate)} (95% interval ${formatPercentRange(modern.baseRate.lower, modern.baseRate.upper)}); the same phase cuts as the calibration. In the chart, dots are the fire-scar era and triangles the modern record.`,
     chart: trustSvg(chart),
     sentences: modern.indices.map((index) => index.homogeneity.sentence).filter((text) => text !== ""),
     meaning: [

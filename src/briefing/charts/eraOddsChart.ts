@@ -1,5 +1,5 @@
 import { scaleLinear } from "d3-scale";
-import { symbol, symbolDiamond } from "d3-shape";
+import { symbol, symbolTriangle } from "d3-shape";
 import type { ChartInterval } from "./oddsByPhaseChart.js";
 import { palette, phaseColour } from "./palette.js";
 import {
@@ -46,7 +46,7 @@ const HEADING = 20;
 
 /**
  * "Then and now" chart: for each index and phase, the chance of a high-fire year in the fire-scar
- * era (filled dot) and in the modern record (hollow diamond, a little below), each across its 95%
+ * era (filled dot) and in the modern record (filled triangle, a little below), each across its 95%
  * interval, coloured by the phase's position (first, middle, last) as on every page; the two eras'
  * average years are khaki lines, solid for the fire-scar era and dashed for the modern record.
  *
@@ -65,10 +65,11 @@ const HEADING = 20;
  * Journal of the American Statistical Association 22(158):209–212 (the intervals drawn).
  */
 export function eraOddsChart(input: Readonly<EraOddsChartInput>, options?: ChartOptions): string {
-  const diamond = symbol(symbolDiamond, 70)() ?? "";
+  // The modern record is a filled triangle: hollow marks mean "small sample" elsewhere in the briefing.
+  const triangle = symbol(symbolTriangle, 64)() ?? "";
   const entries: LegendEntry[] = [
     { symbol: `<circle${attrs({ r: 4.5, fill: palette.phaseMiddle, stroke: palette.ink, "stroke-width": 1 })}/>`, label: input.fireScarLabel },
-    { symbol: `<path${attrs({ d: diamond, fill: palette.paper, stroke: palette.phaseMiddle, "stroke-width": 2 })}/>`, label: input.modernLabel },
+    { symbol: `<path${attrs({ d: triangle, fill: palette.phaseMiddle, stroke: palette.ink, "stroke-width": 1 })}/>`, label: input.modernLabel },
     { symbol: `<line${attrs({ x1: 0, x2: 0, y1: -6, y2: 6, stroke: palette.baseRate, "stroke-width": 2 })}/>`, label: "Average year, then" },
     { symbol: `<line${attrs({ x1: 0, x2: 0, y1: -6, y2: 6, stroke: palette.baseRate, "stroke-width": 2, "stroke-dasharray": "3 2" })}/>`, label: "and now" },
   ];
@@ -110,7 +111,7 @@ export function eraOddsChart(input: Readonly<EraOddsChartInput>, options?: Chart
       if (isDrawable(phase.modern.estimate)) {
         drawn += 1;
         body += whisker(phase.modern, cy + 9, palette.inkMuted);
-        body += `<path${attrs({ class: "era-modern", d: diamond, transform: `translate(${coord(x(phase.modern.estimate))} ${coord(cy + 9)})`, fill: palette.paper, stroke: colour, "stroke-width": 2 })}/>`;
+        body += `<path${attrs({ class: "era-modern", d: triangle, transform: `translate(${coord(x(phase.modern.estimate))} ${coord(cy + 9)})`, fill: colour, stroke: palette.ink, "stroke-width": 1 })}/>`;
       }
       const label = `${isDrawable(phase.fireScar.estimate) ? formatPercent(phase.fireScar.estimate) : "\u2013"} / ${isDrawable(phase.modern.estimate) ? formatPercent(phase.modern.estimate) : "\u2013"}`;
       body += svgText(frame.left - 10, cy + 16, `then / now: ${label}`, { "text-anchor": "end", fill: palette.inkMuted, "font-size": 10 });

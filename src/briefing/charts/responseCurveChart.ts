@@ -7,8 +7,10 @@ import {
   axisVertical,
   type ChartOptions,
   coord,
+  estimateTextWidth,
   formatSigned,
   isDrawable,
+  LABEL_SIZE,
   legend,
   legendExtraHeight,
   type LegendEntry,
@@ -127,8 +129,28 @@ export function responseCurveChart(input: Readonly<ResponseCurveChartInput>, opt
       const diamond = symbol(symbolDiamond, 90)() ?? "";
       body += `<path${attrs({ d: diamond, transform: `translate(${coord(cx)} ${coord(y(reading))})`, fill: palette.current, stroke: palette.paper, "stroke-width": 1.5 })}/>`;
     }
-    const right = cx < (frame.left + frame.right) / 2;
-    body += svgTextOnPanel(cx + (right ? 6 : -6), plot.top + 12, `this season (${formatSigned(current, 2)})`, { "text-anchor": right ? "start" : "end", fill: palette.current, "font-weight": 600 });
+    // The label goes on the side where its box stays inside the plot and covers no phase-cut line
+    // (the wider-room side first); when both sides cover one, the side with room.
+    const text = `this season (${formatSigned(current, 2)})`;
+    const width = estimateTextWidth(text, LABEL_SIZE) * 1.1 + 4;
+    const cutXs = cuts.filter((cut) => cut >= low && cut <= high).map((cut) => x(cut));
+    // Candidates: next to the line on either side, then just past the nearest cut on either side.
+    const preferred = cx < (frame.left + frame.right) / 2;
+    const candidates: { right: boolean; at: number }[] = [];
+    for (const right of [preferred, !preferred]) candidates.push({ right, at: cx + (right ? 6 : -6) });
+    for (const right of [preferred, !preferred]) {
+      const beyond = cutXs.filter((cutX) => (right ? cutX > cx : cutX < cx)).sort((a, b) => (right ? a - b : b - a));
+      for (const cutX of beyond) candidates.push({ right, at: cutX + (right ? 5 : -5) });
+    }
+    const span = (candidate: { right: boolean; at: number }): [number, number] =>
+      candidate.right ? [candidate.at - 2, candidate.at + width] : [candidate.at - width, candidate.at + 2];
+    const fits = (candidate: { right: boolean; at: number }): boolean => span(candidate)[0] >= frame.left && span(candidate)[1] <= frame.right;
+    const clear = (candidate: { right: boolean; at: number }): boolean => {
+      const [from, to] = span(candidate);
+      return cutXs.every((cutX) => cutX < from || cutX > to) && (cx < from || cx > to);
+    };
+    const chosen = candidates.find((candidate) => fits(candidate) && clear(candidate)) ?? candidates.find(fits) ?? candidates[0]!;
+    body += svgTextOnPanel(chosen.at, plot.top + 12, text, { "text-anchor": chosen.right ? "start" : "end", fill: palette.current, "font-weight": 600 });
   }
   body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, `Chance of a high-fire year against the ${input.indexName} value`)}${body}</svg>`;

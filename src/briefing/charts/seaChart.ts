@@ -15,6 +15,8 @@ import {
   notEnoughData,
   paddedExtent,
   svgOpen,
+  estimateTextWidth,
+  LABEL_SIZE,
   svgText,
   svgTextOnPanel,
 } from "./svgParts.js";
@@ -181,8 +183,15 @@ export function seaChart(input: Readonly<SeaChartInput>, options?: ChartOptions)
       "stroke-width": beyond ? 1 : 1.6,
     })}><title>${formatSigned(row.mean, 2)}</title></circle>`;
     if (beyond) {
+      // Above a positive dot, below a negative one; beside the dot when that would leave the plot
+      // (never on the lag axis), and to the left when the right edge is too close.
       const above = row.mean >= 0;
-      body += svgTextOnPanel(cx + 8, cy + (above ? -6 : 14), formatSigned(row.mean, 2, true), { "font-weight": 600, fill: palette.ink });
+      const text = formatSigned(row.mean, 2, true);
+      const width = estimateTextWidth(text, LABEL_SIZE) * 1.1 + 4;
+      let labelY = cy + (above ? -6 : 14);
+      if (labelY > frame.bottom - 4 || labelY - LABEL_SIZE < frame.top) labelY = Math.min(cy + 4, frame.bottom - 3);
+      const right = cx + 8 + width <= frame.right;
+      body += svgTextOnPanel(right ? cx + 8 : cx - 8, labelY, text, { "font-weight": 600, fill: palette.ink, "text-anchor": right ? "start" : "end" });
     }
   }
   if (drawn === 0) body += notEnoughData(frame);

@@ -73,6 +73,19 @@ describe("responseCurveChart", () => {
     { value: 1.1, fireYear: false },
   ];
   const input = { indexName: "PMI", points, years, current: -1.65, cuts: [-0.5, 0.5], level: 0.95 };
+  it("puts the 'this season' label on the side where its box covers no phase-cut line (0.8 beside the cut at 0.5)", () => {
+    for (const current of [0.8, 0.3, -1.65, 2.4]) {
+      const document = checkChartSvg(responseCurveChart({ ...input, current }));
+      const cutsX = elementsWith(document, "line", "class", "phase-cut").map((cut) => Number(cut.attributes.x1));
+      const panel = elementsWith(document, "rect", "class", "label-panel")[0];
+      const left = Number(panel?.attributes.x);
+      const right = left + Number(panel?.attributes.width);
+      expect(cutsX.length, String(current)).toBe(2);
+      for (const cutX of cutsX) expect(cutX < left || cutX > right, `${current}: cut at ${cutX} under ${left}–${right}`).toBe(true);
+      expect(left, String(current)).toBeGreaterThanOrEqual(0);
+      expect(right, String(current)).toBeLessThanOrEqual(680);
+    }
+  });
   it("responseCurveChart(input) draws the curve in its band, a tick per past year (high-fire taller, in their colour), the cuts lightly and this season in violet", () => {
     const document = checkChartSvg(responseCurveChart(input));
     expect(elementsWith(document, "path", "class", "curve")[0]?.attributes.stroke).toBe(palette.estimate);
@@ -120,14 +133,16 @@ describe("eraOddsChart", () => {
     fireScarLabel: "Fire-scar record 1720–1990",
     modernLabel: "Modern record 1950–2026",
   };
-  it("eraOddsChart(input) marks each phase in both eras in its position's colour, the fire-scar era filled and the modern hollow", () => {
+  it("eraOddsChart(input) marks each phase in both eras in its position's colour, the fire-scar era as dots and the modern record as filled triangles (never hollow: hollow means a small sample)", () => {
     const document = checkChartSvg(eraOddsChart(input));
     const then = elementsWith(document, "circle", "class", "era-fire-scar");
     const now = elementsWith(document, "path", "class", "era-modern");
     expect(then.map((dot) => dot.attributes.fill)).toEqual([palette.phaseFirst, palette.phaseMiddle, palette.phaseLast]);
     expect(now).toHaveLength(2);
-    expect(now.every((mark) => mark.attributes.fill === palette.paper)).toBe(true);
-    expect(now.map((mark) => mark.attributes.stroke)).toEqual([palette.phaseFirst, palette.phaseMiddle]);
+    expect(now.map((mark) => mark.attributes.fill)).toEqual([palette.phaseFirst, palette.phaseMiddle]);
+    expect(now.every((mark) => mark.attributes.stroke === palette.ink)).toBe(true);
+    // d3 symbolTriangle: three vertices (M … L … L … Z), unlike the diamond's four.
+    expect(now.every((mark) => (mark.attributes.d ?? "").split("L").length === 3)).toBe(true);
     const text = chartText(document);
     for (const label of ["PMI", "dry", "then / now: 22% / 25%", "then / now: 3% / \u2013", "Fire-scar record 1720–1990", "Modern record 1950–2026", "Average year, then"]) expect(text).toContain(label);
   });

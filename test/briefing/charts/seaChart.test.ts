@@ -15,6 +15,19 @@ const input: SeaChartInput = Object.freeze({
 const means = (svg: string) => checkChartSvg(svg).elements.filter((element) => element.name === "circle" && (element.attributes.class ?? "").startsWith("sea-mean"));
 
 describe("seaChart", () => {
+  it("keeps the value label of the lowest dot inside the plot, above the lag axis (−0.87 at the bottom)", () => {
+    const low = { ...input, mean: lags.map((lag) => (lag === 0 ? -0.87 : lag === -1 ? -0.42 : 0.05)), ci95: lags.map(() => [-0.37, 0.37] as const), ci99: lags.map(() => [-0.47, 0.47] as const) };
+    const document = checkChartSvg(seaChart(low));
+    expect(chartText(document)).toContain("\u22120.87");
+    // The lag labels share one baseline: the y that seven text elements have.
+    const ys = document.elements.filter((element) => element.name === "text").map((element) => Number(element.attributes.y));
+    const lagY = ys.find((y) => ys.filter((other) => other === y).length === lags.length) ?? Number.NaN;
+    const panels = elementsWith(document, "rect", "class", "label-panel");
+    expect(panels).toHaveLength(2);
+    const panelBottom = Math.max(...panels.map((panel) => Number(panel.attributes.y) + Number(panel.attributes.height)));
+    // Above the lag labels' tops (labels are 11 units tall) and above the plot's bottom edge (16 above the lag baseline).
+    expect(panelBottom).toBeLessThanOrEqual(lagY - 16);
+  });
   it("seaChart(input) labels both axes, every lag with a signed integer and the high-fire year's column", () => {
     const text = chartText(checkChartSvg(seaChart(input)));
     for (const label of ["Years before (−) and after (+) a high-fire year", "Index departure from its mean", "\u22124", "\u22121", "0", "+1", "+2", "High-fire year", "Chance alone, 95% of random years", "99%"]) {
