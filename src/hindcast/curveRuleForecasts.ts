@@ -40,15 +40,11 @@ export function curveRuleForecasts(
   const probability = new Float64Array(design.folds);
   const read = new Uint8Array(design.folds);
   const index = Int16Array.from(phase.cellIndex);
-  const n = design.years.length;
   const warmed = design.names.map(() => false);
   for (let fold = 0; fold < design.folds; fold += 1) {
     probability[fold] = phase.probability[fold] as number;
     const k = phase.cellIndex[fold] as number;
     if (k < 0) continue;
-    const value = design.values[k] as Float64Array;
-    const windowStart = design.windowStart[fold] as number;
-    const windowEnd = design.windowEnd[fold] as number;
     const buffers = scratch[k] as CurveScratch;
     if (!warmStart) {
       buffers.linearStart.fill(0);
@@ -59,25 +55,39 @@ export function curveRuleForecasts(
       buffers.hasPrevious.fill(0);
       warmed[k] = true;
     }
-    const { x, y } = buffers;
-    let m = 0;
-    for (let position = 0; position < n; position += 1) {
-      if (position >= windowStart && position < windowEnd) continue;
-      const v = value[position] as number;
-      if (Number.isNaN(v)) continue;
-      x[m] = v;
-      y[m] = fire[position] as number;
-      m += 1;
-    }
-    const estimate = readFastResponseCurve(
-      buffers,
-      m,
-      value[design.target[fold] as number] as number,
-      warmStart ? { values: value, fire, start: windowStart, end: windowEnd } : undefined,
-    );
+    const estimate = readCurveInFold(design, fire, k, fold, buffers, warmStart);
     if (Number.isNaN(estimate)) continue;
     probability[fold] = estimate;
     read[fold] = 1;
   }
   return { probability, read, index };
+}
+
+/**
+ * The curve rule's reading in one fold (see curveRuleForecasts): index k's curve fitted to the left-in years with
+ * a value of it and read at the held-out year's value; NaN when no curve can be fitted.
+ *
+ * @param warmStart - start from the buffers' last coefficients with a warm step (see curveRuleForecasts).
+ */
+export function readCurveInFold(design: HindcastDesign, fire: Uint8Array, k: number, fold: number, buffers: CurveScratch, warmStart: boolean): number {
+  const n = design.years.length;
+  const value = design.values[k] as Float64Array;
+  const windowStart = design.windowStart[fold] as number;
+  const windowEnd = design.windowEnd[fold] as number;
+  const { x, y } = buffers;
+  let m = 0;
+  for (let position = 0; position < n; position += 1) {
+    if (position >= windowStart && position < windowEnd) continue;
+    const v = value[position] as number;
+    if (Number.isNaN(v)) continue;
+    x[m] = v;
+    y[m] = fire[position] as number;
+    m += 1;
+  }
+  return readFastResponseCurve(
+    buffers,
+    m,
+    value[design.target[fold] as number] as number,
+    warmStart ? { values: value, fire, start: windowStart, end: windowEnd } : undefined,
+  );
 }

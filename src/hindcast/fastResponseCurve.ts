@@ -5,7 +5,7 @@ import { chiSquareUpperTail } from "../stats/chiSquareIndependence.js";
 const TOLERANCE = 1e-10;
 const MAX_ITERATIONS = 100;
 /** Fewest years of the rarer outcome before fitResponseCurve tries the quadratic form (10 per slope). */
-const QUADRATIC_MIN_RARER = 20;
+export const QUADRATIC_MIN_RARER = 20;
 /** Below this relative Gram–Schmidt remainder the design is left to logisticRegression's own rank check. */
 const RANK_MARGIN = 1e-6;
 
@@ -237,6 +237,30 @@ function relativeRemainder(x: Float64Array, m: number, columns: 2 | 3): number {
     residual2 += r * r;
   }
   return Math.sqrt(residual2) / Math.sqrt(length4);
+}
+
+/**
+ * Maximum-likelihood logistic fit of the first `m` cases (logit P(y = 1) = b0 + b1·x, + b2·x² when `size` is 3)
+ * by the same Newton–Raphson as the hindcast's folds (see newton), from `coefficients` (updated in place to the
+ * optimum). No separation or rank check is made here: the caller makes them first.
+ *
+ * @param informationOut - receives the information matrix at the optimum (3×3 row-major; entries 0, 1, 2, 4, 5
+ *   and 8 are filled).
+ * @returns the log-likelihood at the optimum, or null when the iteration did not converge.
+ */
+export function fitLogisticCases(x: Float64Array, y: Uint8Array, m: number, size: 2 | 3, coefficients: Float64Array, informationOut: Float64Array): number | null {
+  const result = newton(x, y, m, size, coefficients);
+  if (result !== null) informationOut.set(information);
+  return result;
+}
+
+/**
+ * The design checks readFastResponseCurve makes before its plain maximum-likelihood path, on the first `m` cases:
+ * the relative Gram–Schmidt remainder of the last column of [1, x, x²] (its first `columns` columns) is at
+ * least 1e-6, i.e. the design is not nearly singular.
+ */
+export function designIsRegular(x: Float64Array, m: number, columns: 2 | 3): boolean {
+  return relativeRemainder(x, m, columns) >= RANK_MARGIN;
 }
 
 /** Below this largest step the iteration is in Newton's quadratic convergence region: no step halving needed. */

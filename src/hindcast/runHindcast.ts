@@ -12,6 +12,7 @@ import { rocCurve } from "../stats/rocCurve.js";
 import type { IndexSettings } from "../workspace/types.js";
 import { curveRuleForecasts } from "./curveRuleForecasts.js";
 import { curveScratch } from "./fastResponseCurve.js";
+import { oneStepCurveForecasts, oneStepScratch } from "./oneStepCurveForecasts.js";
 import { fixedEvent, type FixedEvent } from "./fixedEvent.js";
 import { hindcastDesign, type HindcastDesign } from "./hindcastDesign.js";
 import { BASIS, phaseRuleForecasts, phaseRuleScratch, type PhaseRuleForecasts, type PhaseRuleSettings } from "./phaseRuleForecasts.js";
@@ -138,6 +139,7 @@ export function runHindcast(input: HindcastInput): Skill {
   if (input.curveRule === false) return result;
 
   const curveBuffers = design.names.map(() => curveScratch(design.years.length));
+  const oneStep = oneStepScratch(design);
   const curve = curveRuleForecasts(design, event.fire, phase, curveBuffers);
   const curveYears = hindcastYears(design, event, phase, curve.probability, curve.read);
   const curveSkill = scoreHindcast(curveYears, input.exclusion, event, false);
@@ -159,8 +161,9 @@ export function runHindcast(input: HindcastInput): Skill {
           : curveCount <= 0
           ? { pValue: null, reason: "the permutation test was not run (0 shuffles)" }
           : permutationTest(design, event, curveCount, blockYears, streamOf(seed, STREAM.curvePermutation), (fire, category) => {
+              // The test's statistic is the BSS of one-step case-deletion forecasts (ONE_STEP_RULE), observed and shuffled alike.
               const shuffledPhase = phaseRuleForecasts(design, fire, category, settings, scratch);
-              return curveRuleForecasts(design, fire, shuffledPhase, curveBuffers, true).probability;
+              return oneStepCurveForecasts(design, fire, shuffledPhase, oneStep);
             });
   const curveResult = finishSkill(curveSkill, curveYears, event, curveTest, curveCount, blockYears, resamples, seed, [STREAM.curveBootstrap, STREAM.curveCorp], false);
   return { ...result, curveRule: curveResult };
