@@ -133,6 +133,13 @@ export const METHOD_CITATIONS: readonly MethodCitation[] = Object.freeze([
       "Statistical Applications in Genetics and Molecular Biology 9(1): article 39.",
   },
   {
+    method: "One-step case deletion",
+    use: "the curve rule's chance test: in each fold of every shuffle the curves fitted to all years are moved to the fold's years by one Newton step instead of being refitted (the reported curve-rule scores are exact refits)",
+    citation:
+      "Pregibon D. (1981) \u201cLogistic regression diagnostics\u201d, Annals of Statistics 9(4):705\u2013724; " +
+      "Cook R.D., Weisberg S. (1982) Residuals and Influence in Regression, Chapman & Hall, New York.",
+  },
+  {
     method: "Fixed event definition in cross-validation",
     use: "the high-fire threshold and the terciles are set once from the whole period, so leaving a year out cannot move the event it is scored on",
     citation:

@@ -214,7 +214,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   launched?.catch(() => undefined); // observed below; never an unhandled rejection
   const printerPromise: Promise<HtmlPrinter> = launched ?? Promise.resolve(context.printer as HtmlPrinter);
   try {
-    const { loadWorkspace, runCalibration, buildOutlook, toOutlookJson, buildBriefingView, embeddedFontCss, renderBriefingHtml, progressReporter } = await briefModules();
+    const { loadWorkspace, runCalibration, buildOutlookBeside, toOutlookJson, buildBriefingView, embeddedFontCss, renderBriefingHtml, progressReporter } = await briefModules();
     const workspace = await loadWorkspace(located(region, context.cwd));
     // Never overwrite the region's own inputs with a briefing (real paths: links resolved).
     const inputs = await Promise.all(workspace.files.map(async (file) => ({ file, real: await realTarget(resolve(workspace.root, file.path)) })));
@@ -254,7 +254,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       });
     }
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
-    const outlook = buildOutlook(workspace, calibration, request);
+    const outlook = await buildOutlookBeside(workspace, calibration, request);
     const safetyPath = context.safetyPath ?? PACKAGE_SAFETY_PATH;
     let safetyMarkdown: string;
     try {

@@ -18,7 +18,7 @@ export async function briefModules() {
   const [workspace, calibrate, outlook, outlookJson, view, fonts, html, progress, kept, readKept, since] = await Promise.all([
     import("../workspace/loadWorkspace.js"),
     import("../calibrate/runCalibration.js"),
-    import("../outlook/buildOutlook.js"),
+    import("./buildOutlookBeside.js"),
     import("../outlook/toOutlookJson.js"),
     import("../briefing/buildBriefingView.js"),
     import("../briefing/embeddedFonts.js"),
@@ -31,7 +31,7 @@ export async function briefModules() {
   return {
     loadWorkspace: workspace.loadWorkspace,
     runCalibration: calibrate.runCalibration,
-    buildOutlook: outlook.buildOutlook,
+    buildOutlookBeside: outlook.buildOutlookBeside,
     toOutlookJson: outlookJson.toOutlookJson,
     buildBriefingView: view.buildBriefingView,
     embeddedFontCss: fonts.embeddedFontCss,

@@ -1,6 +1,6 @@
 import { Command } from "commander";
 import { runCalibration } from "../calibrate/runCalibration.js";
-import { buildOutlook } from "../outlook/buildOutlook.js";
+import { buildOutlookBeside } from "./buildOutlookBeside.js";
 import { comparisonSentence, formatPercent, formatPercentRange, headline } from "../outlook/describeChance.js";
 import { toOutlookJson } from "../outlook/toOutlookJson.js";
 import type { Outlook } from "../outlook/types.js";
@@ -30,7 +30,7 @@ export function outlookCommand(): Command {
         const workspace = await loadWorkspace(region);
         const request = resolveOutlookRequest(workspace, options, new Date());
         const calibration = runCalibration(workspace, { onProgress: progressReporter() });
-        const outlook = buildOutlook(workspace, calibration, request);
+        const outlook = await buildOutlookBeside(workspace, calibration, request);
         if (options.json === true) printJson(toOutlookJson(outlook));
         else writeOut(formatOutlook(outlook));
       } catch (error) {

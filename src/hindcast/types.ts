@@ -66,6 +66,8 @@ export interface Skill {
   readonly skillPValueReason?: string;
   /** Number of block shuffles m behind skillPValue. */
   readonly permutations?: number;
+  /** How the permutation test's statistic is computed when it is not the reported score (the curve rule: ONE_STEP_RULE). */
+  readonly permutationStatistic?: string;
   /** Block length (years) of the shuffles behind skillPValue. */
   readonly permutationBlockYears?: number;
   /** Moving-block bootstrap intervals of BSS, RPSS and ROC area. */

@@ -6,7 +6,7 @@ import { forecastCell } from "../calibrate/forecastCell.js";
 import { proportionEstimate } from "../calibrate/proportionEstimate.js";
 import type { AssociationRank } from "../calibrate/rankIndicesByAssociation.js";
 import type { Calibration } from "../calibrate/types.js";
-import { runHindcast } from "../hindcast/runHindcast.js";
+import { runHindcast, type HindcastInput } from "../hindcast/runHindcast.js";
 import type { Skill } from "../hindcast/types.js";
 import type { IndexSettings, Workspace } from "../workspace/types.js";
 import { analogYears } from "./analogYears.js";
@@ -49,6 +49,77 @@ export interface OutlookValueDetail {
  * years, and the cross-validated hindcast skill of the same method.
  */
 export function buildOutlook(workspace: Workspace, calibration: Calibration, request: OutlookRequest): Outlook {
+  return attachHindcast(buildOutlookWithoutHindcast(workspace, calibration, request), runHindcast(outlookHindcastInput(workspace, calibration, request)));
+}
+
+/** An outlook before its hindcast is attached (see {@link attachHindcast}). */
+export type OutlookWithoutHindcast = Omit<Outlook, "hindcast">;
+
+/**
+ * The indices the outlook uses: those of the calibration with a finite value in the request, in calibration order.
+ */
+function indicesWithValues(calibration: Calibration, request: OutlookRequest): string[] {
+  return calibration.indices
+    .filter((index) => {
+      const given = Object.hasOwn(request.values, index.name) ? request.values[index.name] : undefined;
+      return given !== undefined && Number.isFinite(given);
+    })
+    .map((index) => index.name);
+}
+
+/**
+ * The input of the outlook's cross-validated hindcast (runHindcast): the calibration years and records, the
+ * indices with a current value, and the methods' settings and seed. It depends on nothing else of the outlook,
+ * so the hindcast can run beside the rest (another thread) and be joined by {@link attachHindcast}.
+ */
+export function outlookHindcastInput(workspace: Workspace, calibration: Calibration, request: OutlookRequest): HindcastInput {
+  const { settings } = workspace;
+  return {
+    years: calibration.years,
+    activity: calibration.activity,
+    indexValues: new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)])),
+    indexSettings: settings.indices,
+    indices: indicesWithValues(calibration, request),
+    top: settings.fireYears.top,
+    measure: settings.fireYears.measure,
+    exclusion: settings.methods.hindcastExclusion,
+    jointMinYears: settings.methods.jointMinYears,
+    jointMaxQ: settings.methods.jointMaxQ,
+    // The permutation test, bootstrap intervals and the rule the outlook issues (methods settings and seed).
+    seed: settings.seed,
+    permutations: settings.methods.permutations,
+    blockYears: settings.methods.blockYears,
+    bootstrapResamples: settings.methods.bootstrapResamples,
+    response: settings.methods.response === "curve" ? "curve" : "phase",
+  };
+}
+
+/**
+ * Joins an outlook and the hindcast of {@link outlookHindcastInput}: the hindcast verifies the rule the outlook
+ * issued — with the curve headline, the curve rule's scores and verdict lead and the phase rule's stand beside
+ * them (and the other way round); with no current value it says a skill score does not apply.
+ */
+export function attachHindcast(outlook: OutlookWithoutHindcast, computedSkill: Skill): Outlook {
+  const curveHeadline = outlook.fireYear.response === "curve";
+  const { curveRule, ...phaseRuleSkill } = computedSkill;
+  const issuedSkill: Skill =
+    curveHeadline && curveRule !== null && curveRule !== undefined
+      ? { ...curveRule, issuedRule: "curve", phaseRule: phaseRuleSkill, curveRule: null, curveRuleReason: "this is the curve rule; the phase rule is under phaseRule" }
+      : { ...computedSkill, issuedRule: "phase" };
+  const hindcast =
+    outlook.current.length === 0
+      ? {
+          ...issuedSkill,
+          verdict:
+            "No current index values were given, so these are the long-term average odds; a skill score does not apply to them.",
+        }
+      : issuedSkill;
+  const { warnings, ...before } = outlook;
+  return { ...before, hindcast, warnings };
+}
+
+/** Everything of {@link buildOutlook} but the hindcast (see {@link attachHindcast}). */
+export function buildOutlookWithoutHindcast(workspace: Workspace, calibration: Calibration, request: OutlookRequest): OutlookWithoutHindcast {
   const { settings } = workspace;
   // The near-boundary margin is a share of the index's standard deviation (methods.nearBoundarySd, default 0.1).
   const nearBoundarySd = Number.isFinite(settings.methods.nearBoundarySd) ? settings.methods.nearBoundarySd : 0.1;
@@ -338,43 +409,6 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
   });
   const analogFireShare = proportionEstimate(analogs.filter((analog) => analog.fireYear).length, analogs.length, method);
 
-  // The permutation test, bootstrap intervals and the rule the outlook issues (methods settings and seed).
-  const hindcastSettings = {
-    seed: settings.seed,
-    permutations: settings.methods.permutations,
-    blockYears: settings.methods.blockYears,
-    bootstrapResamples: settings.methods.bootstrapResamples,
-    response,
-  };
-  const computedSkill = runHindcast({
-    years: calibration.years,
-    activity: calibration.activity,
-    indexValues,
-    indexSettings: settings.indices,
-    indices: [...currentPhase.keys()],
-    top: settings.fireYears.top,
-    measure: settings.fireYears.measure,
-    exclusion: settings.methods.hindcastExclusion,
-    jointMinYears: settings.methods.jointMinYears,
-    jointMaxQ: settings.methods.jointMaxQ,
-    ...hindcastSettings,
-  });
-  // The hindcast verifies the rule the outlook issued: with the curve headline, the curve rule's
-  // scores and verdict lead and the phase rule's stand beside them (and the other way round).
-  const { curveRule, ...phaseRuleSkill } = computedSkill;
-  const issuedSkill: Skill =
-    curveHeadline && curveRule !== null && curveRule !== undefined
-      ? { ...curveRule, issuedRule: "curve", phaseRule: phaseRuleSkill, curveRule: null, curveRuleReason: "this is the curve rule; the phase rule is under phaseRule" }
-      : { ...computedSkill, issuedRule: "phase" };
-  const hindcast =
-    currentPhase.size === 0
-      ? {
-          ...issuedSkill,
-          verdict:
-            "No current index values were given, so these are the long-term average odds; a skill score does not apply to them.",
-        }
-      : issuedSkill;
-
   return {
     issued: request.issued,
     season: request.season,
@@ -387,7 +421,6 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
     categories,
     analogs,
     analogFireShare,
-    hindcast,
     warnings,
   };
 }

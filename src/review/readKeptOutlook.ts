@@ -27,6 +27,16 @@ function realDate(text: string): boolean {
   return date.getFullYear() === year && date.getMonth() === month - 1 && date.getDate() === day;
 }
 
+/** The line of the first JSON syntax error in `text` (null when the locator finds none). */
+function syntaxErrorLine(text: string): number | null {
+  try {
+    locateJson(text);
+    return null;
+  } catch (error) {
+    return error instanceof JsonSyntaxError ? error.line : null;
+  }
+}
+
 /**
  * Kept-outlook reader: reads back one outlook that `brief` kept (`<region>/issued/*.json`, the
  * `firephase.outlook/1` object) or that someone wrote by hand. Required: `schema` (a string
@@ -46,15 +56,15 @@ function realDate(text: string): boolean {
  * // => { file: "r/issued/a.json", season: 2026, issued: "2026-03-01", probability: 0.2, … }
  */
 export function readKeptOutlook(text: string, file: string): KeptOutlook {
-  let locations: JsonLocations;
   let value: unknown;
   try {
-    locations = locateJson(text);
     value = JSON.parse(text) as unknown;
   } catch (error) {
-    const line = error instanceof JsonSyntaxError ? error.line : null;
-    throw new InputError([{ file, line, message: `not valid JSON (${error instanceof Error ? error.message : String(error)})` }]);
+    throw new InputError([{ file, line: syntaxErrorLine(text), message: `not valid JSON (${error instanceof Error ? error.message : String(error)})` }]);
   }
+  // Line numbers are needed only for problems: the text is located (a slower, second parse) only then.
+  let located: JsonLocations | null = null;
+  const locations = { lineOf: (path: readonly (string | number)[]): number | null => (located ??= locateJson(text)).lineOf(path) };
   const problems: InputProblem[] = [];
   const problem = (path: readonly (string | number)[], message: string): void => {
     problems.push({ file, line: locations.lineOf(path), message });

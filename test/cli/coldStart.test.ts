@@ -59,3 +59,16 @@ describe("start-up loads only what a command needs", () => {
     expect(loaded.filter((url) => /\/dist\/workspace\/(?!InputError\.js$)|node_modules\/zod\//.test(url))).toEqual([]);
   });
 });
+
+describe("the hindcast beside the rest (a worker thread in the built CLI)", () => {
+  it("outlook --json of the built CLI equals the one-thread outlook of the sources byte for byte (demo region)", async () => {
+    const { runBuilt, runInProcess } = await import("./helpers.js");
+    const args = ["outlook", resolve("demo-region"), "--issued", "2027-03-10", "--json"];
+    const built = runBuilt(args);
+    expect(built.code, built.stderr).toBe(0);
+    const inProcess = await runInProcess(args);
+    expect(inProcess.code, inProcess.stderr).toBe(0);
+    expect(built.stdout).toBe(inProcess.stdout);
+    expect(JSON.parse(built.stdout).hindcast.skillPValue).toBeGreaterThan(0);
+  }, 120_000);
+});

@@ -189,12 +189,17 @@ describe("runHindcast(input)", () => {
 });
 
 describe("runHindcast curve-rule permutation bound", () => {
-  it("a 700-year record skips the curve rule's permutation test with a reason unless the curve rule is the issued one", () => {
-    const input = { ...hindcastInput({ effect: 1.2, seed: 4, first: 1201, last: 1900 }), permutations: 99, bootstrapResamples: 0 };
+  it("a 700-year record runs the curve rule's 99 shuffles; a 3,100-year record skips them with a reason unless the curve rule is the issued one", () => {
+    const medium = runHindcast({ ...hindcastInput({ effect: 1.2, seed: 4, first: 1201, last: 1900 }), permutations: 99, bootstrapResamples: 0 });
+    expect(medium.curveRule?.skillPValue).not.toBeNull();
+    expect(medium.curveRule?.permutations).toBe(99);
+    expect(medium.curveRule?.permutationStatistic).toMatch(/one-step case-deletion/);
+    const input = { ...hindcastInput({ effect: 1.2, seed: 4, first: -1199, last: 1900 }), permutations: 99, bootstrapResamples: 0 };
     const skill = runHindcast(input);
     expect(skill.skillPValue).not.toBeNull();
     expect(skill.curveRule?.skillPValue).toBeNull();
-    expect(skill.curveRule?.skillPValueReason).toMatch(/not run for a record of 700 years/);
+    expect(skill.curveRule?.skillPValueReason).toMatch(/not run for a record of 3100 years/);
+    expect(skill.curveRule?.permutationStatistic).toBeUndefined();
     expect(skill.curveRule?.hasSkill).toBe(false);
   });
 });
