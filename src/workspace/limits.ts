@@ -16,8 +16,10 @@ export const MAX_DATA_FILE_BYTES = 32 * 1024 * 1024;
 export const MAX_REGION_JSON_BYTES = 1024 * 1024;
 
 /**
- * Longest free text, in characters (UTF-16 code units, as JavaScript counts them), per field. Long
- * enough for any real name; short enough that a page of the briefing cannot be swamped.
+ * Longest free text, in characters, per field: in region.json counted as Unicode code points (a
+ * surrogate pair counts once; see settingsSchema.ts), in the CSV files as UTF-16 code units (as
+ * JavaScript counts them). Long enough for any real name; short enough that a page of the
+ * briefing cannot be swamped.
  */
 export const TEXT_LIMITS = Object.freeze({
   /** Region name. */

@@ -1,12 +1,12 @@
 import { isValid } from "date-fns/isValid";
 import { parseISO } from "date-fns/parseISO";
-import { z } from "zod";
 import { parseMonthWindow } from "../climate/seasonalValues.js";
 import { DEFAULT_FIRE_YEARS, DEFAULT_METHODS, DEFAULT_SEED, DEFAULT_TERCILE_LABELS } from "./defaults.js";
 import { didYouMean } from "./didYouMean.js";
 import { InputError, ProblemList } from "./InputError.js";
 import { JsonSyntaxError, locateJson } from "./jsonLocations.js";
 import { echoText, MAX_MISSING_CODES, TEXT_LIMITS } from "./limits.js";
+import * as v from "./settingsSchema.js";
 import type { IndexSettings, PhaseRule, RegionSettings } from "./types.js";
 
 /** The data files named in region.json, as written there (relative to the region folder). */
@@ -19,180 +19,176 @@ export interface RegionFileNames {
 
 const INDEX_NAME = /^[A-Za-z][A-Za-z0-9_.-]*$/;
 
-const fileName = z.string().trim().min(1, { error: "must be a file name" }).max(TEXT_LIMITS.file);
+/** A data-file path: trimmed, not empty, at most TEXT_LIMITS.file characters. */
+const fileName = v.text({ trim: true, min: 1, max: TEXT_LIMITS.file });
 /** Optional free text of at most `limit` characters. */
-const freeText = (limit: number) => z.string().max(limit);
-const year = z.number().int().min(-9999, { error: "must be a year from -9999 to 9999" }).max(9999, { error: "must be a year from -9999 to 9999" });
-const integer = (minimum: number) => z.number().int().min(minimum);
+const freeText = (limit: number) => v.optional(v.text({ max: limit }));
+/** A whole year from -9999 to 9999. */
+const year = v.number({ int: true, min: -9999, max: 9999 });
+/** A whole number from `min` to `max` (no upper bound when left out). */
+const integer = (min: number, max?: number) => v.optional(v.number({ int: true, min, max }));
 
-const calibrationSchema = z
-  .strictObject({ first: year, last: year })
-  .refine((c) => c.first <= c.last, { error: "must not be before calibration.first", path: ["last"] });
-
-const fireRecordSchema = z
-  .strictObject({
-    sites: fileName.optional(),
-    events: fileName.optional(),
-    activity: fileName.optional(),
-    modern: fileName.optional(),
-  })
-  .superRefine((record, ctx) => {
-    const hasSites = record.sites !== undefined || record.events !== undefined;
-    if (hasSites && record.activity !== undefined) {
-      ctx.addIssue({ code: "custom", message: 'give either "sites" and "events", or "activity", not both', path: ["activity"] });
-    } else if (hasSites) {
-      if (record.sites === undefined) ctx.addIssue({ code: "custom", message: '"sites" is required with "events"', path: [] });
-      if (record.events === undefined) ctx.addIssue({ code: "custom", message: '"events" is required with "sites"', path: [] });
-    } else if (record.activity === undefined) {
-      ctx.addIssue({ code: "custom", message: 'give "sites" and "events", or "activity"', path: [] });
-    }
-  });
-
-const fireYearsSchema = z.strictObject({
-  top: z.number().gt(0).lt(1).optional(),
-  measure: z.enum(["fraction", "sites"]).optional(),
-  minSitesRecording: integer(1).optional(),
+const calibrationSchema = v.object({ first: year, last: year }, (c, report) => {
+  if (!(c.first <= c.last)) report("must not be before calibration.first", ["last"]);
 });
 
-const indexSchema = z
-  .strictObject({
+const fireRecordSchema = v.object(
+  {
+    sites: v.optional(fileName),
+    events: v.optional(fileName),
+    activity: v.optional(fileName),
+    modern: v.optional(fileName),
+  },
+  (record, report) => {
+    const hasSites = record.sites !== undefined || record.events !== undefined;
+    if (hasSites && record.activity !== undefined) {
+      report('give either "sites" and "events", or "activity", not both', ["activity"]);
+    } else if (hasSites) {
+      if (record.sites === undefined) report('"sites" is required with "events"');
+      if (record.events === undefined) report('"events" is required with "sites"');
+    } else if (record.activity === undefined) {
+      report('give "sites" and "events", or "activity"');
+    }
+  },
+);
+
+const fireYearsSchema = v.object({
+  top: v.optional(v.number({ gt: 0, lt: 1 })),
+  measure: v.optional(v.oneOf(["fraction", "sites"])),
+  minSitesRecording: integer(1),
+});
+
+const indexSchema = v.object(
+  {
     file: fileName,
-    column: z.string().trim().min(1).max(TEXT_LIMITS.column).optional(),
-    months: z.string().max(40).optional(),
-    cuts: z.array(z.number()).min(1).max(20).optional(),
-    phases: z.literal("terciles").optional(),
-    labels: z.array(z.string().trim().min(1).max(TEXT_LIMITS.label)).max(21).optional(),
-    missing: z.array(z.number()).max(MAX_MISSING_CODES).optional(),
-    units: z.string().trim().min(1).max(TEXT_LIMITS.units).optional(),
-  })
-  .superRefine((index, ctx) => {
+    column: v.optional(v.text({ trim: true, min: 1, max: TEXT_LIMITS.column })),
+    months: v.optional(v.text({ max: 40 })),
+    cuts: v.optional(v.list(v.number(), { min: 1, max: 20 })),
+    phases: v.optional(v.oneOf(["terciles"])),
+    labels: v.optional(v.list(v.text({ trim: true, min: 1, max: TEXT_LIMITS.label }), { max: 21 })),
+    missing: v.optional(v.list(v.number(), { max: MAX_MISSING_CODES })),
+    units: v.optional(v.text({ trim: true, min: 1, max: TEXT_LIMITS.units })),
+  },
+  (index, report) => {
     if (index.months !== undefined && parseMonthWindow(index.months) === null) {
-      ctx.addIssue({ code: "custom", message: 'must be a month window such as "Dec-Mar" or "Jul"', path: ["months"] });
+      report('must be a month window such as "Dec-Mar" or "Jul"', ["months"]);
     }
     if ((index.cuts === undefined) === (index.phases === undefined)) {
-      ctx.addIssue({ code: "custom", message: 'give exactly one of "cuts" or "phases": "terciles"', path: [] });
+      report('give exactly one of "cuts" or "phases": "terciles"');
       return;
     }
     if (index.cuts !== undefined) {
       for (let i = 1; i < index.cuts.length; i++) {
-        if ((index.cuts[i] as number) <= (index.cuts[i - 1] as number)) {
-          ctx.addIssue({ code: "custom", message: "cuts must be strictly ascending", path: ["cuts", i] });
-        }
+        if ((index.cuts[i] as number) <= (index.cuts[i - 1] as number)) report("cuts must be strictly ascending", ["cuts", i]);
       }
       if (index.labels === undefined) {
-        ctx.addIssue({ code: "custom", message: `"labels" is required with "cuts" (${index.cuts.length + 1} labels)`, path: [] });
+        report(`"labels" is required with "cuts" (${index.cuts.length + 1} labels)`);
       } else if (index.labels.length !== index.cuts.length + 1) {
-        ctx.addIssue({ code: "custom", message: `needs ${index.cuts.length + 1} labels for ${index.cuts.length} cuts`, path: ["labels"] });
+        report(`needs ${index.cuts.length + 1} labels for ${index.cuts.length} cuts`, ["labels"]);
       }
     } else if (index.labels !== undefined && index.labels.length !== 3) {
-      ctx.addIssue({ code: "custom", message: "terciles need exactly 3 labels", path: ["labels"] });
+      report("terciles need exactly 3 labels", ["labels"]);
     }
     if (index.labels !== undefined && new Set(index.labels).size !== index.labels.length) {
-      ctx.addIssue({ code: "custom", message: "labels must be different from each other", path: ["labels"] });
+      report("labels must be different from each other", ["labels"]);
     }
-  });
+  },
+);
 
-const outlookSchema = z.strictObject({
-  season: year.optional(),
-  values: z.record(z.string(), z.number()).optional(),
-  issued: z
-    .string()
-    .refine((text) => /^\d{4}-\d{2}-\d{2}$/.test(text) && isValid(parseISO(text)), { error: "must be a date YYYY-MM-DD" })
-    .optional(),
+/** An issue date: YYYY-MM-DD and a real calendar day. */
+const isIssueDate = (date: string): boolean => /^\d{4}-\d{2}-\d{2}$/.test(date) && isValid(parseISO(date));
+
+const outlookSchema = v.object({
+  season: v.optional(year),
+  values: v.optional(v.record(v.number())),
+  issued: v.optional(v.text({ refine: { test: isIssueDate, message: "must be a date YYYY-MM-DD" } })),
 });
 
-const methodsSchema = z
-  .strictObject({
-    interval: z.enum(["wilson", "jeffreys"]).optional(),
-    seaFirstLag: z.number().int().min(-100).max(100).optional(),
-    seaLastLag: z.number().int().min(-100).max(100).optional(),
-    seaDraws: integer(1000).max(1_000_000, { error: "must be at most 1000000" }).optional(),
-    blockYears: integer(1).max(100).optional(),
-    blockMaxLag: integer(0).max(100).optional(),
-    stabilityWindow: integer(2).max(10000).optional(),
-    stabilityStep: integer(1).max(10000).optional(),
-    analogs: integer(1).max(1000).optional(),
-    jointMinYears: integer(1).max(10000).optional(),
-    jointMaxQ: z.number().gt(0).max(1).optional(),
-    nearBoundarySd: z.number().min(0).max(10).optional(),
-    response: z.enum(["phase", "curve"]).optional(),
-    modernMeasure: z.enum(["area", "fires"]).optional(),
-    permutations: integer(199).max(100_000).optional(),
-    bootstrapResamples: integer(199).max(100_000).optional(),
-    independenceKm: z.number().min(0).optional(),
-    hindcastExclusion: integer(0).max(100).optional(),
-    smallSampleYears: integer(1).max(10000).optional(),
-  })
-  .superRefine((methods, ctx) => {
+const methodsSchema = v.object(
+  {
+    interval: v.optional(v.oneOf(["wilson", "jeffreys"])),
+    seaFirstLag: integer(-100, 100),
+    seaLastLag: integer(-100, 100),
+    seaDraws: integer(1000, 1_000_000),
+    blockYears: integer(1, 100),
+    blockMaxLag: integer(0, 100),
+    stabilityWindow: integer(2, 10000),
+    stabilityStep: integer(1, 10000),
+    analogs: integer(1, 1000),
+    jointMinYears: integer(1, 10000),
+    jointMaxQ: v.optional(v.number({ gt: 0, max: 1 })),
+    nearBoundarySd: v.optional(v.number({ min: 0, max: 10 })),
+    response: v.optional(v.oneOf(["phase", "curve"])),
+    modernMeasure: v.optional(v.oneOf(["area", "fires"])),
+    permutations: integer(199, 100_000),
+    bootstrapResamples: integer(199, 100_000),
+    independenceKm: v.optional(v.number({ min: 0 })),
+    hindcastExclusion: integer(0, 100),
+    smallSampleYears: integer(1, 10000),
+  },
+  (methods, report) => {
     const first = methods.seaFirstLag ?? DEFAULT_METHODS.seaFirstLag;
     const last = methods.seaLastLag ?? DEFAULT_METHODS.seaLastLag;
     if (first > 0 || last < 0) {
-      ctx.addIssue({ code: "custom", message: "the SEA lags must run from 0 or below to 0 or above", path: [methods.seaFirstLag !== undefined ? "seaFirstLag" : "seaLastLag"] });
+      report("the SEA lags must run from 0 or below to 0 or above", [methods.seaFirstLag !== undefined ? "seaFirstLag" : "seaLastLag"]);
     }
-  });
+  },
+);
 
-const regionSchema = z
-  .strictObject({
-    name: z.string().trim().min(1, { error: "must be a non-empty name" }).max(TEXT_LIMITS.name),
-    description: freeText(TEXT_LIMITS.description).optional(),
-    preparedBy: freeText(TEXT_LIMITS.preparedBy).optional(),
-    contact: freeText(TEXT_LIMITS.contact).optional(),
-    calibration: calibrationSchema.optional(),
+const regionSchema = v.object(
+  {
+    name: v.text({ trim: true, min: 1, max: TEXT_LIMITS.name }),
+    description: freeText(TEXT_LIMITS.description),
+    preparedBy: freeText(TEXT_LIMITS.preparedBy),
+    contact: freeText(TEXT_LIMITS.contact),
+    calibration: v.optional(calibrationSchema),
     fireRecord: fireRecordSchema,
-    fireYears: fireYearsSchema.optional(),
-    indices: z.record(z.string(), indexSchema),
-    outlook: outlookSchema.optional(),
-    seed: z.number().int().min(Number.MIN_SAFE_INTEGER).max(Number.MAX_SAFE_INTEGER).optional(),
-    methods: methodsSchema.optional(),
-  })
-  .superRefine((region, ctx) => {
+    fireYears: v.optional(fireYearsSchema),
+    indices: v.record(indexSchema),
+    outlook: v.optional(outlookSchema),
+    seed: v.optional(v.number({ int: true, min: Number.MIN_SAFE_INTEGER, max: Number.MAX_SAFE_INTEGER })),
+    methods: v.optional(methodsSchema),
+  },
+  (region, report) => {
     const names = Object.keys(region.indices);
-    if (names.length === 0) ctx.addIssue({ code: "custom", message: "name at least one index", path: ["indices"] });
+    if (names.length === 0) report("name at least one index", ["indices"]);
     for (const name of names) {
       if (!INDEX_NAME.test(name)) {
-        ctx.addIssue({
-          code: "custom",
-          message: "an index name starts with a letter and has only letters, digits, '_', '-' or '.'",
-          path: ["indices", name],
-        });
+        report("an index name starts with a letter and has only letters, digits, '_', '-' or '.'", ["indices", name]);
       } else if (name.length > TEXT_LIMITS.indexName) {
-        ctx.addIssue({
-          code: "custom",
-          message: `an index name has at most ${TEXT_LIMITS.indexName} characters (this one has ${name.length})`,
-          path: ["indices", name],
-        });
+        report(`an index name has at most ${TEXT_LIMITS.indexName} characters (this one has ${name.length})`, ["indices", name]);
       }
     }
     for (const name of Object.keys(region.outlook?.values ?? {})) {
       if (!names.includes(name)) {
         const suggestion = didYouMean(name, names);
-        ctx.addIssue({
-          code: "custom",
-          message: `"${echoText(name)}" is not an index of this region${suggestion === null ? ` (indices: ${names.map((known) => echoText(known)).join(", ")})` : ` (did you mean "${echoText(suggestion)}"?)`}`,
-          path: ["outlook", "values", name],
-        });
+        report(
+          `"${echoText(name)}" is not an index of this region${suggestion === null ? ` (indices: ${names.map((known) => echoText(known)).join(", ")})` : ` (did you mean "${echoText(suggestion)}"?)`}`,
+          ["outlook", "values", name],
+        );
       }
     }
-  });
+  },
+);
 
-type RegionJson = z.infer<typeof regionSchema>;
+type RegionJson = v.Output<typeof regionSchema>;
 
 /** The keys allowed in the object at `path`, for did-you-mean suggestions. */
-function knownKeysAt(path: readonly PropertyKey[]): readonly string[] {
-  if (path.length === 0) return Object.keys(regionSchema.shape);
-  if (path.length === 2 && path[0] === "indices") return Object.keys(indexSchema.shape);
+function knownKeysAt(path: v.SettingsPath): readonly string[] {
+  if (path.length === 0) return regionSchema.keys;
+  if (path.length === 2 && path[0] === "indices") return indexSchema.keys;
   if (path.length === 1) {
     switch (path[0]) {
       case "calibration":
-        return Object.keys(calibrationSchema.shape);
+        return calibrationSchema.keys;
       case "fireRecord":
-        return Object.keys(fireRecordSchema.shape);
+        return fireRecordSchema.keys;
       case "fireYears":
-        return Object.keys(fireYearsSchema.shape);
+        return fireYearsSchema.keys;
       case "outlook":
-        return Object.keys(outlookSchema.shape);
+        return outlookSchema.keys;
       case "methods":
-        return Object.keys(methodsSchema.shape);
+        return methodsSchema.keys;
       default:
         return [];
     }
@@ -217,8 +213,8 @@ function describeValue(value: unknown): string {
 }
 
 /**
- * `JSON.parse` keeps a key "__proto__" as an own property, but zod's record reader drops it and an
- * ordinary object would take it as its prototype. A "__proto__" key in `indices` or
+ * `JSON.parse` keeps a key "__proto__" as an own property, but the settings schema's record reader
+ * skips it (an ordinary object would take it as its prototype). A "__proto__" key in `indices` or
  * `outlook.values` is therefore refused here, with its line; in the fixed-key objects the strict
  * schema already reports it as an unknown key.
  */
@@ -247,8 +243,8 @@ const RENAMED_KEYS: ReadonlyMap<string, { readonly key: string; readonly hint: s
   ["methods.nearBoundaryMargin", { key: "nearBoundarySd", hint: "it is now a share of the index's standard deviation, e.g. 0.1" }],
 ]);
 
-/** A plain sentence for one zod issue. */
-function issueMessage(issue: z.core.$ZodIssue, found: unknown): string {
+/** A plain sentence for one problem found by the settings schema. */
+function issueMessage(issue: Exclude<v.SettingsIssue, { code: "unrecognized_keys" }>, found: unknown): string {
   if (typeof found === "number" && !Number.isFinite(found)) {
     return "is out of range: not a finite number (JSON numbers beyond about 1.8e308 cannot be used)";
   }
@@ -264,12 +260,8 @@ function issueMessage(issue: z.core.$ZodIssue, found: unknown): string {
       if (issue.origin === "array") return `has too many items: at most ${String(issue.maximum)}`;
       return `must be ${issue.inclusive ? "at most" : "less than"} ${String(issue.maximum)}`;
     case "invalid_value":
-      return `must be one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}`;
-    case "invalid_format":
-      return `must be ${issue.format}`;
-    case "not_multiple_of":
-      return `must be a multiple of ${String(issue.divisor)}`;
-    default:
+      return `must be one of ${issue.values.map((value) => JSON.stringify(value)).join(", ")}`;
+    case "custom":
       return issue.message;
   }
 }
@@ -315,9 +307,9 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
     throw new InputError(problems.toArray());
   }
   checkProtoKeys(raw as Record<string, unknown>, locations, problems);
-  const parsed = regionSchema.safeParse(raw);
-  if (!parsed.success) {
-    for (const issue of parsed.error.issues) {
+  const parsed = v.validate(regionSchema, raw);
+  if (!parsed.ok) {
+    for (const issue of parsed.issues) {
       if (issue.code === "unrecognized_keys") {
         const known = knownKeysAt(issue.path);
         for (const key of issue.keys) {
@@ -335,19 +327,16 @@ export function parseRegionJson(text: string, file: string): { settings: RegionS
       const found = valueAt(raw, issue.path);
       const subject = issue.path.length === 0 ? "region.json" : `"${dotted(issue.path)}"`;
       const message = issueMessage(issue, found);
-      const literal = locations.literalOf(issue.path.map((key) => (typeof key === "number" ? key : String(key))));
+      const literal = locations.literalOf(issue.path);
       let foundText = "";
       if (typeof found === "number" && !Number.isFinite(found)) foundText = ` (found ${echoText(literal ?? String(found))})`;
       else if (typeof found === "string" && issue.code === "too_big") foundText = ` (found ${found.length} characters)`;
       else if (found !== undefined && (issue.code !== "custom" || message.startsWith("must"))) foundText = ` (found ${describeValue(found)})`;
-      problems.add(
-        locations.lineOf(issue.path.map((key) => (typeof key === "number" ? key : String(key)))),
-        `${subject} ${message}${foundText}`,
-      );
+      problems.add(locations.lineOf(issue.path), `${subject} ${message}${foundText}`);
     }
   }
-  if (problems.size > 0 || !parsed.success) throw new InputError(problems.toArray());
-  return toSettings(parsed.data);
+  if (problems.size > 0 || !parsed.ok) throw new InputError(problems.toArray());
+  return toSettings(parsed.value);
 }
 
 /** A copy of a record with no prototype, so that a lookup by a user's key never finds an inherited property. */
