@@ -57,7 +57,7 @@ const { createRandom } = await import(dist("stats/createRandom.js"));
 const REPEATS = Number(process.env.BENCH_REPEATS ?? 5);
 const PAIRS = Number(process.env.BENCH_PAIRS ?? 7);
 const SECTIONS = new Set((process.env.BENCH_SECTIONS ?? "check,brief,batch,detail").split(",").map((name) => name.trim()));
-const BIN = join(root, "dist", "cli", "main.js");
+const BIN = join(root, "dist", "bin", "main.js");
 const TIME = existsSync("/usr/bin/time") ? "/usr/bin/time" : null;
 const demo = join(root, "demo-region");
 const scratch = mkdtempSync(join(tmpdir(), "firephase-bench-"));

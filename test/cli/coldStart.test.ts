@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { pathToFileURL } from "node:url";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { BUILT_BIN, buildOnce } from "./helpers.js";
+import { BUILT_BIN, buildOnce, UNBUNDLED_BIN } from "./helpers.js";
 
 // Which modules a command loads, seen by a module-resolution hook (node:module register) in the
 // built CLI: start-up time is paid per module, so a command must not load what it does not use.
@@ -33,10 +33,10 @@ afterAll(() => {
   rmSync(work, { recursive: true, force: true });
 });
 
-function modulesOf(args: readonly string[], name: string): string[] {
+function modulesOf(args: readonly string[], name: string, bin = UNBUNDLED_BIN): string[] {
   const log = join(work, `${name}.log`);
   writeFileSync(log, "");
-  const run = spawnSync(process.execPath, ["--import", pathToFileURL(hooks).href, BUILT_BIN, ...args], { encoding: "utf8", env: { ...process.env, FIREPHASE_MODULE_LOG: log } });
+  const run = spawnSync(process.execPath, ["--import", pathToFileURL(hooks).href, bin, ...args], { encoding: "utf8", env: { ...process.env, FIREPHASE_MODULE_LOG: log } });
   expect(run.status, run.stderr).toBe(0);
   return [...new Set(readFileSync(log, "utf8").split("\n").filter((line) => line !== ""))];
 }
@@ -50,6 +50,12 @@ describe("start-up loads only what a command needs", () => {
     for (const pattern of HEAVY) expect(loaded.filter((url) => pattern.test(url)), String(pattern)).toEqual([]);
     expect(loaded.filter((url) => /node_modules\/date-fns\/index\.js$/.test(url))).toEqual([]);
     expect(loaded.filter((url) => /\/dist\/cli\/(brief|outlook|calibrate|review)\.js$/.test(url))).toEqual([]);
+  });
+
+  it("the bundle (dist/bin, what the package runs): check loads neither puppeteer-core nor the packed browser, and fewer than 25 files", () => {
+    const loaded = modulesOf(["check", resolve("test/fixtures/regions/valid"), "--json"], "check-bundle", BUILT_BIN);
+    expect(loaded.filter((url) => /node_modules\/(puppeteer-core|@sparticuz)\//.test(url))).toEqual([]);
+    expect(loaded.filter((url) => url.startsWith("file:")).length).toBeLessThan(25);
   });
 
   it("firephase --version loads no command module and no region reader", () => {

@@ -45,12 +45,16 @@ export async function runInProcess(argv: readonly string[], env: Record<string, 
   }
 }
 
-/** The built CLI entry. */
-export const BUILT_BIN = path.resolve("dist/cli/main.js");
+/** The built CLI as the package runs it: the bundle of scripts/bundle.mjs ("bin" in package.json). */
+export const BUILT_BIN = path.resolve("dist/bin/main.js");
+
+/** The compiled, unbundled entry (dist/cli/, one file per module), for tests of which modules a command loads. */
+export const UNBUNDLED_BIN = path.resolve("dist/cli/main.js");
 
 /**
- * Build src → dist with the project's build config. The build of other folders may report type
- * errors while they are in progress; tsc still emits, so only a missing entry file is fatal.
+ * Build src → dist with the project's build config, then bundle dist/cli → dist/bin. The build of
+ * other folders may report type errors while they are in progress; tsc still emits, so only a
+ * missing entry file is fatal. The bundle keeps recent chunks, as other test files may be running it.
  */
 export function buildOnce(): void {
   try {
@@ -58,6 +62,8 @@ export function buildOnce(): void {
   } catch {
     // Type errors elsewhere do not stop tsc from emitting; checked below.
   }
+  if (!existsSync(UNBUNDLED_BIN)) throw new Error(`build did not produce ${UNBUNDLED_BIN}`);
+  execFileSync(process.execPath, ["scripts/bundle.mjs"], { stdio: "pipe", env: { ...process.env, FIREPHASE_BUNDLE_KEEP_RECENT: "1" } });
   if (!existsSync(BUILT_BIN)) throw new Error(`build did not produce ${BUILT_BIN}`);
 }
 
