@@ -8,7 +8,9 @@
 //      and `firephase --version`;
 //   b. the browser floor — a plain script that starts the same bundled browser through
 //      puppeteer-core, prints a trivial page to PDF and closes — against `firephase brief
-//      demo-region` (target: brief ≤ 1.5× the floor);
+//      demo-region` (target: brief ≤ 1.5× the floor); and the print floor — the same script
+//      printing the briefing's own HTML with brief's print options — against both: how much of
+//      brief is the printing of its document, and what reading, computing and rendering add;
 //   c. a batch: `firephase brief r01 … r20` on 20 regions generated from the demo into a temp
 //      folder (each a copy with its own seed and name, and every 20th fire event left out at its own
 //      offset, so no two are the same), against one `brief`: regions per minute and the marginal
@@ -50,6 +52,7 @@ const { buildOutlook } = await import(dist("outlook/buildOutlook.js"));
 const { runBrief } = await import(dist("cli/brief.js"));
 const { findBrowser } = await import(dist("briefing/findBrowser.js"));
 const { PdfPrinter, BROWSER_ARGS } = await import(dist("briefing/printPdf.js"));
+const { embeddedFontCss } = await import(dist("briefing/embeddedFonts.js"));
 const { runHindcast } = await import(dist("hindcast/runHindcast.js"));
 const { valuesByYear } = await import(dist("calibrate/activityByYear.js"));
 const { createRandom } = await import(dist("stats/createRandom.js"));
@@ -61,6 +64,14 @@ const BIN = join(root, "dist", "bin", "main.js");
 const TIME = existsSync("/usr/bin/time") ? "/usr/bin/time" : null;
 const demo = join(root, "demo-region");
 const scratch = mkdtempSync(join(tmpdir(), "firephase-bench-"));
+
+/** Pages of a PDF, from its page-tree count (the largest /Count; enough for the PDFs Chromium writes). */
+function pdfPages(path) {
+  const text = readFileSync(path).toString("latin1");
+  let pages = 0;
+  for (const match of text.matchAll(/\/Type\s*\/Pages\b[^>]*?\/Count\s+(\d+)/g)) pages = Math.max(pages, Number(match[1]));
+  return pages === 0 ? "?" : String(pages);
+}
 
 function median(values) {
   const sorted = [...values].sort((a, b) => a - b);
@@ -216,6 +227,41 @@ const { tmpdir } = require("node:os");
 }
 
 /**
+ * The print floor: the same plain script, but printing the briefing's own HTML (saved once with
+ * `brief --html`) with the options `brief` prints with (A4, tagged, background, the page footer with
+ * its embedded font): what printing this document costs by itself, with nothing computed.
+ */
+function writePrintFloorScript(folder, browserPath, htmlPath, footerFontCss) {
+  const puppeteerEntry = createRequire(join(root, "package.json")).resolve("puppeteer-core");
+  const path = join(folder, "print-floor.cjs");
+  const footerTemplate =
+    `<style>${footerFontCss}</style><div style="font-family:'Source Sans 3',sans-serif;font-size:8pt;width:100%;margin:0 15mm;display:flex;justify-content:space-between;">` +
+    `<span>floor</span><span>page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`;
+  writeFileSync(
+    path,
+    `const puppeteer = require(${JSON.stringify(puppeteerEntry)});
+const { mkdtempSync, readFileSync, rmSync, writeFileSync } = require("node:fs");
+const { join } = require("node:path");
+const { tmpdir } = require("node:os");
+(async () => {
+  const html = readFileSync(${JSON.stringify(htmlPath)}, "utf8");
+  const userDataDir = mkdtempSync(join(tmpdir(), "firephase-floor-"));
+  const browser = await puppeteer.launch({ executablePath: ${JSON.stringify(browserPath)}, headless: true, userDataDir, args: ${JSON.stringify(BROWSER_ARGS)} });
+  const page = await browser.newPage();
+  await page.setJavaScriptEnabled(false);
+  await page.setContent(html, { waitUntil: "load" });
+  const pdf = await page.pdf({ format: "A4", printBackground: true, tagged: true, displayHeaderFooter: true, headerTemplate: "<span></span>",
+    footerTemplate: ${JSON.stringify(footerTemplate)}, margin: { top: "14mm", right: "15mm", bottom: "16mm", left: "15mm" } });
+  writeFileSync(join(userDataDir, "out.pdf"), pdf);
+  await browser.close();
+  rmSync(userDataDir, { recursive: true, force: true });
+})().catch((error) => { console.error(error); process.exit(1); });
+`,
+  );
+  return path;
+}
+
+/**
  * Write `count` regions generated from the demo into `folder` (r01, r02, …): each a copy of the
  * demo with its own seed and name, and every 20th fire event left out starting at its own offset,
  * so their records, odds and resamplings differ. Returns the folder names.
@@ -306,8 +352,16 @@ try {
     const out = join(scratch, "cold.pdf");
     const brief = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
     single = brief.b;
+    // The same browser printing the briefing's own document: what no computation or load order can remove.
+    const htmlPath = join(scratch, "briefing.html");
+    wholeProcess(briefArgs([demoCopy], ["--out", join(scratch, "for-html.pdf"), "--html", htmlPath]), scratch);
+    const printFloorScript = writePrintFloorScript(scratch, browser.executablePath, htmlPath, embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]));
+    const printed = pairs("print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
+    const floorOnly = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
     headline.push(
       `brief demo-region ÷ browser floor: ${brief.ratio.toFixed(2)}× (target ≤ 1.5×; ${brief.b.median.toFixed(0)} ms against ${brief.a.median.toFixed(0)} ms)${brief.cpuRatio === null ? "" : `; CPU time of the node process ${brief.cpuRatio.toFixed(2)}×`}`,
+      `  of which printing the briefing's own ${pdfPages(out)}-page document: print floor ÷ browser floor ${floorOnly.ratio.toFixed(2)}× (${floorOnly.b.median.toFixed(0)} ms against ${floorOnly.a.median.toFixed(0)} ms)`,
+      `  brief demo-region ÷ print floor: ${printed.ratio.toFixed(2)}× (${printed.b.median.toFixed(0)} ms against ${printed.a.median.toFixed(0)} ms): what reading, computing and rendering add to printing the document`,
     );
   }
   if (SECTIONS.has("batch")) {
