@@ -1,38 +1,77 @@
 /**
  * Rendering the briefing view model to one self-contained HTML document with handlebars.
  */
-import { readFileSync, readdirSync } from "node:fs";
-import { basename, dirname, join, resolve } from "node:path";
+import { readFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
-import Handlebars from "handlebars";
 import type { BriefingView } from "./buildBriefingView.js";
 import { BRIEFING_FACES, embeddedFontCss, fontSubsetsFor } from "./embeddedFonts.js";
 import { paletteCss } from "./charts/palette.js";
+import { TEMPLATE_OPTIONS, templatesDigest, templateSources } from "./precompiledTemplates.js";
 import { trustCss } from "./trustedMarkup.js";
 
 /** The templates folder shipped with the package (`templates/` beside `src/` and `dist/`). */
 export const TEMPLATES_DIR = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..", "templates");
 
+/** The templates compiled at build time (scripts/precompile-templates.mjs), beside the package's dist/. */
+export const PRECOMPILED_TEMPLATES = resolve(TEMPLATES_DIR, "..", "dist", "briefing-templates.cjs");
+
+const requireFromHere = createRequire(import.meta.url);
+
+/** The part of a handlebars environment used here (the full package and the runtime alike). */
+interface HandlebarsEnvironment {
+  create(): HandlebarsEnvironment;
+  registerPartial(name: string, partial: unknown): void;
+  compile(source: string, options: typeof TEMPLATE_OPTIONS): (data: unknown) => string;
+  template(spec: unknown): (data: unknown) => string;
+}
+
+interface PrecompiledTemplates {
+  readonly digest: string;
+  readonly main: unknown;
+  readonly partials: Readonly<Record<string, unknown>>;
+}
+
 type CompiledBriefing = (data: unknown) => string;
 const compiledByFolder = new Map<string, CompiledBriefing>();
 
-function compileTemplates(folder: string): CompiledBriefing {
-  const cached = compiledByFolder.get(folder);
-  if (cached !== undefined) return cached;
-  // A private handlebars environment: no helpers besides the built-in block helpers, strict
-  // lookups (a field missing from the view model is an error, never an empty string).
-  const environment = Handlebars.create();
-  const partialsFolder = join(folder, "partials");
-  for (const file of readdirSync(partialsFolder).sort()) {
-    if (file.endsWith(".hbs")) environment.registerPartial(basename(file, ".hbs"), readFileSync(join(partialsFolder, file), "utf8"));
+/** The build's precompiled templates when they were made from exactly these sources, else null. */
+function precompiledFor(digest: string, file: string): PrecompiledTemplates | null {
+  try {
+    const loaded = requireFromHere(file) as PrecompiledTemplates;
+    return loaded.digest === digest ? loaded : null;
+  } catch {
+    return null; // not built (running from the sources), or unreadable: compile here
   }
-  const template = environment.compile(readFileSync(join(folder, "briefing.hbs"), "utf8"), {
-    strict: true,
-    knownHelpersOnly: true,
-    preventIndent: true,
-  });
+}
+
+/**
+ * The briefing template of `folder`, with its partials: the build's precompiled templates (only the
+ * handlebars runtime is loaded) when their digest matches the sources, else compiled here with the same
+ * options. A private handlebars environment: no helpers besides the built-in block helpers, strict lookups
+ * (a field missing from the view model is an error, never an empty string).
+ *
+ * @param precompiledFile - where the precompiled templates are looked for (default {@link PRECOMPILED_TEMPLATES}).
+ */
+export function compileTemplates(folder: string, precompiledFile: string = PRECOMPILED_TEMPLATES): CompiledBriefing {
+  const key = `${folder}\u0000${precompiledFile}`;
+  const cached = compiledByFolder.get(key);
+  if (cached !== undefined) return cached;
+  const sources = templateSources(folder);
+  const precompiled = precompiledFor(templatesDigest(sources), precompiledFile);
+  let template: (data: unknown) => string;
+  if (precompiled !== null) {
+    const environment = (requireFromHere("handlebars/runtime") as { default: HandlebarsEnvironment }).default.create();
+    for (const [name, spec] of Object.entries(precompiled.partials)) environment.registerPartial(name, environment.template(spec));
+    template = environment.template(precompiled.main);
+  } else {
+    const environment = (requireFromHere("handlebars") as HandlebarsEnvironment).create();
+    for (const [name, text] of sources.partials) environment.registerPartial(name, text);
+    template = environment.compile(sources.main, { ...TEMPLATE_OPTIONS }); // a copy: handlebars adds to its options
+  }
   const compiled: CompiledBriefing = (data) => template(data);
-  compiledByFolder.set(folder, compiled);
+  compiledByFolder.set(key, compiled);
   return compiled;
 }
 
