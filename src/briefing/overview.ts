@@ -1,7 +1,9 @@
 /**
  * The overview of a batch of briefings: one row per region with its headline odds of a
  * high-fire year and their 95% interval, the average year (base rate), the hindcast's skill
- * verdict and the basis of the odds, sorted by the odds (highest first). It is written as a CSV
+ * verdict in a few words (read from the outlook's structured hindcast fields) and the basis of the
+ * odds, sorted by the odds (highest first). Regions issued on different dates or for different
+ * seasons are said to be so in plain notes. It is written as a CSV
  * (for a spreadsheet) and as a one-page HTML document printed to PDF beside the briefings, with
  * the cautions of SAFETY.md. The numbers are read from each region's outlook JSON, the same
  * object `firephase outlook --json` prints, so the overview cannot disagree with the briefings.
@@ -10,6 +12,7 @@ import { formatPercent, formatPercentRange } from "../outlook/describeChance.js"
 import { BAND_TEXT } from "./buildBriefingView.js";
 import { paletteCss } from "./charts/palette.js";
 import { escapeHtml } from "./escapeHtml.js";
+import { clipText, formatLongDate, formatMoment } from "./formatValues.js";
 
 /** An estimate with its 95% interval; null where it cannot be computed. */
 export interface OverviewChance {
@@ -17,6 +20,18 @@ export interface OverviewChance {
   readonly lower: number | null;
   readonly upper: number | null;
 }
+
+/**
+ * The hindcast's verdict in two or three words, for the overview's column:
+ * - "Some skill": the hindcast beat the long-term average and the chance test says it is hard to
+ *   reach by chance (`hindcast.hasSkill`);
+ * - "No skill": the chance test was run and the method did not show skill;
+ * - "Not tested": the scores exist but the chance test was not run (`skillPValueReason` says why);
+ * - "Too little data": the scores or the chance test could not be computed;
+ * - "Does not apply": no current index value was used, so the odds are the average year's and
+ *   there is no index-based forecast to check.
+ */
+export type OverviewSkill = "Some skill" | "No skill" | "Not tested" | "Too little data" | "Does not apply";
 
 /** One region of the overview. */
 export interface OverviewRow {
@@ -33,6 +48,8 @@ export interface OverviewRow {
   readonly baseRate: OverviewChance;
   /** Whether the hindcast shows skill (`hindcast.hasSkill`), null when unknown. */
   readonly hasSkill: boolean | null;
+  /** The verdict in words ({@link OverviewSkill}), from the outlook's structured fields; null when unknown. */
+  readonly skill: OverviewSkill | null;
   /** The hindcast's verdict sentence (`hindcast.verdict`). */
   readonly verdict: string;
   /** Which past years the odds are read from (`fireYear.basis`). */
@@ -54,6 +71,34 @@ function finiteOrNull(value: unknown): number | null {
 function chanceOf(value: unknown): OverviewChance {
   const record = asRecord(value);
   return { estimate: finiteOrNull(record["estimate"]), lower: finiteOrNull(record["lower"]), upper: finiteOrNull(record["upper"]) };
+}
+
+/**
+ * The short verdict of an outlook JSON's hindcast, read from its structured fields (never from the
+ * verdict sentence): `current` (no current index value: "Does not apply"), `hindcast.hasSkill`,
+ * `hindcast.brierSkillScore`, `hindcast.skillPValue` and `hindcast.skillPValueReason`, by the rule
+ * of the hindcast's verdict (skill only when the Brier skill score is above 0 and its permutation
+ * p-value at most 0.05).
+ *
+ * @param outlookJson - the object `firephase outlook --json` prints for the region.
+ * @returns the verdict in words, or null when the JSON lacks the fields.
+ * @throws never.
+ * @example
+ * overviewSkill({ current: [{ index: "ENSO" }], hindcast: { hasSkill: false, brierSkillScore: 0.02, skillPValue: 0.31 } }); // => "No skill"
+ */
+export function overviewSkill(outlookJson: unknown): OverviewSkill | null {
+  const outlook = asRecord(outlookJson);
+  const current = outlook["current"];
+  if (Array.isArray(current) && current.length === 0) return "Does not apply";
+  const hindcast = asRecord(outlook["hindcast"]);
+  const hasSkill = hindcast["hasSkill"];
+  if (typeof hasSkill !== "boolean") return null;
+  if (hasSkill) return "Some skill";
+  const score = finiteOrNull(hindcast["brierSkillScore"]);
+  const p = finiteOrNull(hindcast["skillPValue"]);
+  if (score !== null && p === null && typeof hindcast["skillPValueReason"] === "string") return "Not tested";
+  if (score === null || p === null) return "Too little data";
+  return "No skill";
 }
 
 /**
@@ -81,6 +126,7 @@ export function overviewRowFromOutlook(outlookJson: unknown, folder: string, pdf
     chance: chanceOf(fireYear),
     baseRate: chanceOf(outlook["baseRate"]),
     hasSkill: typeof hindcast["hasSkill"] === "boolean" ? hindcast["hasSkill"] : null,
+    skill: overviewSkill(outlookJson),
     verdict: typeof hindcast["verdict"] === "string" ? hindcast["verdict"] : "",
     basis: typeof fireYear["basis"] === "string" ? fireYear["basis"] : "",
     pdf,
@@ -110,6 +156,7 @@ export function failedOverviewRow(folder: string, problems: readonly string[]): 
     chance: none,
     baseRate: none,
     hasSkill: null,
+    skill: null,
     verdict: "",
     basis: "",
     pdf: null,
@@ -156,6 +203,7 @@ export const OVERVIEW_CSV_COLUMNS: readonly string[] = Object.freeze([
   "base_rate_lower",
   "base_rate_upper",
   "has_skill",
+  "skill",
   "skill_verdict",
   "basis",
   "pdf",
@@ -205,6 +253,7 @@ export function overviewCsv(rows: readonly OverviewRow[]): string {
         row.baseRate.lower,
         row.baseRate.upper,
         row.hasSkill,
+        row.skill,
         row.verdict,
         row.basis,
         row.pdf,
@@ -263,10 +312,110 @@ export interface OverviewPageOptions {
   readonly fontCss: string;
 }
 
-/** The verdict's first sentence, at most 110 characters (the CSV keeps the whole verdict). */
-function shortVerdict(row: OverviewRow): string {
-  const first = (/^[^.;]*[.;]?/.exec(row.verdict)?.[0] ?? row.verdict).trim();
-  return first.length > 110 ? `${first.slice(0, 109)}…` : first;
+/** A briefed region's name as the overview's notes list it (at most 60 characters), with its folder when another region has the same name. */
+function shownName(row: OverviewRow, rows: readonly OverviewRow[]): string {
+  const shared = rows.some((other) => other !== row && other.status === "briefed" && other.region === row.region);
+  return shared ? `${clipText(row.region, 60)} in ${clipText(row.folder, 60)}` : clipText(row.region, 60);
+}
+
+/** Names in a sentence: at most five, then "and N more". */
+function nameList(names: readonly string[]): string {
+  const shown = names.slice(0, 5).join(", ");
+  return names.length > 5 ? `${shown} and ${names.length - 5} more` : shown;
+}
+
+/** Distinct values of the briefed rows, ascending, each with the regions that have it (in overview order). */
+function groupsOf<K extends string | number>(rows: readonly OverviewRow[], key: (row: OverviewRow) => K | null): { readonly key: K; readonly names: string[] }[] {
+  const groups = new Map<K, string[]>();
+  for (const row of sortOverviewRows(rows)) {
+    if (row.status !== "briefed") continue;
+    const value = key(row);
+    if (value === null) continue;
+    const names = groups.get(value) ?? [];
+    names.push(shownName(row, rows));
+    groups.set(value, names);
+  }
+  return [...groups.entries()].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)).map(([value, names]) => ({ key: value, names }));
+}
+
+/** Words joined as "a", "a and b", "a, b and c". */
+function andList(words: readonly string[]): string {
+  return words.length <= 1 ? (words[0] ?? "") : `${words.slice(0, -1).join(", ")} and ${words[words.length - 1]}`;
+}
+
+/**
+ * The plain notes of an overview whose regions were not all issued on the same date or for the
+ * same fire season (regions take their dates from their own region.json unless `--issued` and
+ * `--season` are given): each date or season (ascending) with the regions that have it, in
+ * {@link sortOverviewRows} order.
+ *
+ * @param rows - the rows in any order (failed regions are not counted).
+ * @returns no note when the briefed regions share their issue date and season; else one note for
+ *   the dates and one for the seasons, whichever differ.
+ * @throws never.
+ * @example
+ * overviewDateNotes([north10March, ridge15March])[0]; // => "Regions were issued on different dates: 10 March 2027 (North); 15 March 2027 (Ridge). Each region's odds use what was known on its own date."
+ */
+export function overviewDateNotes(rows: readonly OverviewRow[]): string[] {
+  const notes: string[] = [];
+  const dates = groupsOf(rows, (row) => row.issued);
+  if (dates.length > 1) {
+    notes.push(
+      `Regions were issued on different dates: ${dates.map((group) => `${formatLongDate(group.key)} (${nameList(group.names)})`).join("; ")}. ` +
+        "Each region's odds use what was known on its own date.",
+    );
+  }
+  const seasons = groupsOf(rows, (row) => row.season);
+  if (seasons.length > 1) {
+    notes.push(
+      `The regions' fire seasons differ: ${seasons.map((group) => `${group.key} (${nameList(group.names)})`).join("; ")}. ` +
+        "Odds for different seasons are not the same question: compare those rows with care.",
+    );
+  }
+  return notes;
+}
+
+/**
+ * The heading line of the overview, in the words of the single briefings' header
+ * ("Issued 10 March 2027" "for the 2027 fire season"), for several dates or seasons too.
+ *
+ * @param rows - the rows in any order.
+ * @returns the issue text and the season text ("" when no briefed region has one).
+ * @throws never.
+ * @example
+ * overviewDateline(rows); // => { issuedText: "Issued 10 March 2027", seasonText: "for the 2027 fire season" }
+ */
+export function overviewDateline(rows: readonly OverviewRow[]): { readonly issuedText: string; readonly seasonText: string } {
+  const dates = groupsOf(rows, (row) => row.issued).map((group) => group.key);
+  const seasons = groupsOf(rows, (row) => row.season).map((group) => String(group.key));
+  const issuedText =
+    dates.length === 0
+      ? ""
+      : dates.length === 1
+        ? `Issued ${formatLongDate(dates[0] as string)}`
+        : `Issued on ${dates.length} different dates, ${formatLongDate(dates[0] as string)} to ${formatLongDate(dates[dates.length - 1] as string)}`;
+  const seasonText = seasons.length === 0 ? "" : seasons.length === 1 ? `for the ${seasons[0]} fire season` : `for the ${andList(seasons)} fire seasons`;
+  return { issuedText, seasonText };
+}
+
+/**
+ * The footer of every overview page (beside "page x of y"), like the single briefings' footer
+ * ("… · fire-season outlook 2027 · Issued 10 March 2027").
+ *
+ * @param rows - the rows in any order.
+ * @returns the footer text.
+ * @throws never.
+ * @example
+ * overviewFooterText(rows); // => "Overview of 3 regions · fire-season outlook 2027 · Issued 10 March 2027"
+ */
+export function overviewFooterText(rows: readonly OverviewRow[]): string {
+  const seasons = groupsOf(rows, (row) => row.season).map((group) => String(group.key));
+  const dates = groupsOf(rows, (row) => row.issued).map((group) => group.key);
+  const parts = [`Overview of ${rows.length} region${rows.length === 1 ? "" : "s"}`];
+  if (seasons.length > 0) parts.push(`fire-season outlook${seasons.length === 1 ? "" : "s"} ${andList(seasons)}`);
+  if (dates.length === 1) parts.push(`Issued ${formatLongDate(dates[0] as string)}`);
+  else if (dates.length > 1) parts.push(`Issued ${formatLongDate(dates[0] as string)} to ${formatLongDate(dates[dates.length - 1] as string)}`);
+  return parts.join(" · ");
 }
 
 function chanceCell(chance: OverviewChance): string {
@@ -276,8 +425,10 @@ function chanceCell(chance: OverviewChance): string {
 
 /**
  * The overview as one self-contained HTML page (no script, no external resource): a header band
- * saying it is not an official forecast, a table of every region in {@link sortOverviewRows}
- * order, the regions that could not be briefed, and the cautions. Every text is escaped.
+ * saying it is not an official forecast, the issue date and season and the moment it was made
+ * (written as the single briefings write them), the notes of {@link overviewDateNotes}, a table of
+ * every region in {@link sortOverviewRows} order, the regions that could not be briefed, and the
+ * cautions. Every text is escaped.
  *
  * @param rows - the rows (sorted here).
  * @param options - cautions, date, version, fonts.
@@ -290,19 +441,21 @@ export function overviewHtml(rows: readonly OverviewRow[], options: OverviewPage
   const sorted = sortOverviewRows(rows);
   const briefed = sorted.filter((row) => row.status === "briefed");
   const failed = sorted.filter((row) => row.status === "failed");
-  const seasons = [...new Set(briefed.map((row) => row.season).filter((season): season is number => season !== null))];
-  const dates = [...new Set(briefed.map((row) => row.issued).filter((issued): issued is string => issued !== null))];
-  const subtitle =
-    `${briefed.length} region${briefed.length === 1 ? "" : "s"} briefed` +
-    (failed.length > 0 ? `, ${failed.length} not briefed` : "") +
-    (seasons.length === 1 ? ` · ${seasons[0]} fire season` : seasons.length > 1 ? ` · seasons ${seasons.join(", ")}` : "") +
-    (dates.length === 1 ? ` · issued ${dates[0]}` : dates.length > 1 ? ` · issued ${dates.join(", ")}` : "");
+  const dateline = overviewDateline(sorted);
+  const dateNotes = overviewDateNotes(sorted);
+  const counts = `${briefed.length} region${briefed.length === 1 ? "" : "s"} briefed` + (failed.length > 0 ? `, ${failed.length} not briefed` : "");
+  // With several dates or seasons, each row says its own (only what differs).
+  const datesDiffer = groupsOf(sorted, (row) => row.issued).length > 1;
+  const seasonsDiffer = groupsOf(sorted, (row) => row.season).length > 1;
+  const rowDates = (row: OverviewRow): string =>
+    (datesDiffer && row.issued !== null ? `<div class="muted small">Issued ${escapeHtml(formatLongDate(row.issued))}</div>` : "") +
+    (seasonsDiffer && row.season !== null ? `<div class="muted small">${escapeHtml(String(row.season))} season</div>` : "");
   const body = briefed
     .map(
       (row, position) =>
-        `<tr><td class="num">${position + 1}</td><td><div class="strong">${escapeHtml(row.region)}</div><div class="muted small">${escapeHtml(row.folder)}</div></td>` +
+        `<tr><td class="num">${position + 1}</td><td><div class="strong">${escapeHtml(row.region)}</div><div class="muted small">${escapeHtml(row.folder)}</div>${rowDates(row)}</td>` +
         `${chanceCell(row.chance)}${chanceCell(row.baseRate)}` +
-        `<td class="small">${escapeHtml(shortVerdict(row))}</td>` +
+        `<td class="skill">${escapeHtml(row.skill ?? "Not known")}</td>` +
         `<td class="small">${escapeHtml(row.basis)}</td></tr>`,
     )
     .join("\n");
@@ -310,6 +463,7 @@ export function overviewHtml(rows: readonly OverviewRow[], options: OverviewPage
     failed.length === 0
       ? ""
       : `<h2>Not briefed</h2><ul class="small">${failed.map((row) => `<li><span class="strong">${escapeHtml(row.folder)}</span>: ${escapeHtml(row.problem ?? "failed")}</li>`).join("")}</ul>`;
+  const notesBox = dateNotes.length === 0 ? "" : `<div class="dates-differ">${dateNotes.map((note) => `<p>${escapeHtml(note)}</p>`).join("")}</div>`;
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; font-src data:; img-src data:">
@@ -322,7 +476,11 @@ body { font-family: 'Source Sans 3', sans-serif; color: var(--fp-ink); font-size
 .band { background: var(--fp-band); color: var(--fp-paper); padding: 4pt 8pt; font-size: 8.5pt; font-weight: 600; }
 h1 { color: var(--fp-heading); font-size: 16pt; margin: 10pt 0 2pt; }
 h2 { color: var(--fp-heading); font-size: 11pt; margin: 10pt 0 4pt; }
+.dateline { font-size: 11pt; margin: 0 0 2pt; }
 .sub { color: var(--fp-inkMuted); margin: 0 0 8pt; }
+.dates-differ { border: 1pt solid var(--fp-ink); border-left-width: 3pt; background: var(--fp-panel); padding: 3pt 8pt; margin: 0 0 8pt; }
+.dates-differ p { margin: 2pt 0; }
+td.skill { white-space: nowrap; font-weight: 600; }
 table { border-collapse: collapse; width: 100%; }
 th { text-align: left; font-weight: 600; border-bottom: 1.2pt solid var(--fp-rule); padding: 3pt 4pt; font-size: 8.5pt; color: var(--fp-heading); }
 td { border-bottom: 0.5pt solid var(--fp-grid); padding: 2pt 4pt; vertical-align: top; }
@@ -337,7 +495,9 @@ tr { break-inside: avoid; }
 <body>
 <div class="band">${escapeHtml(BAND_TEXT)}</div>
 <h1>Overview of the briefings: odds of a high-fire year</h1>
-<p class="sub">${escapeHtml(subtitle)} · made ${escapeHtml(options.madeAt)} with firephase ${escapeHtml(options.toolVersion)}. Sorted by this season's odds, highest first; each region's briefing explains its odds.</p>
+<p class="dateline"><strong>${escapeHtml(dateline.issuedText)}</strong> ${escapeHtml(dateline.seasonText)}</p>
+<p class="sub">${escapeHtml(counts)} · Made ${escapeHtml(formatMoment(options.madeAt))} with firephase ${escapeHtml(options.toolVersion)}. Sorted by this season's odds, highest first; each region's briefing explains its odds and its hindcast.</p>
+${notesBox}
 <table>
 <thead><tr><th class="num">#</th><th>Region</th><th class="num">This season</th><th class="num">95% interval</th><th class="num">Average year</th><th class="num">95% interval</th><th>Hindcast skill</th><th>Odds read from</th></tr></thead>
 <tbody>

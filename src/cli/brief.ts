@@ -196,6 +196,8 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   // Bad output locations fail before any work is done.
   await outputChecked(() => checkOutputTargets([outGiven, htmlGiven].filter((path): path is string => path !== null), replace));
   if (options.outDir !== undefined && outGiven !== null) throw new UsageError("--out and --out-dir cannot be given together: --out names the PDF itself");
+  // --out-dir is made (mkdir -p) before any work; a batch has made it already.
+  if (options.outDir !== undefined && context.printer === undefined) await (await import("./briefBatch.js")).ensureOutDir(options.outDir, context.cwd);
   // Start the browser now (unless a batch shares one): it launches while the modules load and the statistics are computed.
   const launched =
     context.printer !== undefined

@@ -9,9 +9,9 @@
  * At the end an overview (CSV and a one-page PDF) lists every region's headline odds.
  */
 import { availableParallelism } from "node:os";
-import { readFile } from "node:fs/promises";
+import { mkdir, readFile, stat } from "node:fs/promises";
 import type { Worker } from "node:worker_threads";
-import { basename, isAbsolute, join, resolve } from "node:path";
+import { basename, dirname, isAbsolute, join, normalize, resolve } from "node:path";
 import { findBrowser } from "../briefing/findBrowser.js";
 import type { HtmlPrinter, PdfPrinter, PrintOptions, PrintResult } from "../briefing/printPdf.js";
 import { PACKAGE_SAFETY_PATH, runBrief, type BriefContext, type BriefOptions, type BriefResult } from "./brief.js";
@@ -94,6 +94,57 @@ function checkBatchUsage(regions: readonly string[], options: BriefOptions, cwd:
 }
 
 /**
+ * Why `mkdir -p` of the `--out-dir` folder failed, in words.
+ *
+ * @param error - what `mkdir` threw.
+ * @param blocking - the nearest existing folder or file on the way to the folder (see
+ *   {@link nearestExisting}), as the user would write it; null when none was found.
+ * @returns e.g. "briefings is not a folder (a file is in the way)", "no permission to make folders in /srv".
+ * @example
+ * outDirProblem(Object.assign(new Error("x"), { code: "EACCES" }), { shown: "/srv", isFolder: true }); // => "no permission to make folders in /srv"
+ */
+export function outDirProblem(error: unknown, blocking: { readonly shown: string; readonly isFolder: boolean } | null): string {
+  const code = (error as NodeJS.ErrnoException | null)?.code;
+  if (blocking !== null && !blocking.isFolder && (code === "EEXIST" || code === "ENOTDIR")) return `${blocking.shown} is not a folder (a file is in the way)`;
+  if (code === "EACCES" || code === "EPERM") return `no permission to make folders${blocking === null ? "" : ` in ${blocking.shown}`}`;
+  if (code === "EROFS") return "the file system is read-only";
+  if (code === "ENOSPC") return "the disk is full";
+  if (code === "ENAMETOOLONG") return "the name is too long";
+  return error instanceof Error ? error.message : String(error);
+}
+
+/** The nearest existing path at or above `folder` (typed relative to `cwd`), written as typed, and whether it is a folder. */
+async function nearestExisting(folder: string, cwd: string): Promise<{ readonly shown: string; readonly isFolder: boolean } | null> {
+  let typed = normalize(folder);
+  for (;;) {
+    const found = await stat(resolve(cwd, typed)).catch(() => null);
+    if (found !== null) return { shown: typed, isFolder: found.isDirectory() };
+    const up = dirname(typed);
+    if (up === typed) return null;
+    typed = up;
+  }
+}
+
+/**
+ * Makes the `--out-dir` folder and its missing parents (as `mkdir -p`), before any work.
+ *
+ * @param outDir - the folder as typed.
+ * @param cwd - the folder it is relative to.
+ * @returns when the folder exists (it stays when a later step fails, as with `mkdir -p`).
+ * @throws UsageError `--out-dir: cannot make the folder DIR: …` naming what is in the way (a file,
+ *   no permission, a read-only file system).
+ * @example
+ * await ensureOutDir("briefings/2027", process.cwd()); // makes briefings/ and briefings/2027/ when neither exists
+ */
+export async function ensureOutDir(outDir: string, cwd: string): Promise<void> {
+  try {
+    await mkdir(resolve(cwd, outDir), { recursive: true });
+  } catch (error) {
+    throw new UsageError(`--out-dir: cannot make the folder ${outDir}: ${outDirProblem(error, await nearestExisting(outDir, cwd))}`);
+  }
+}
+
+/**
  * Brief several regions with one browser and write the overview.
  *
  * @param regions - region folders (two or more; one works too).
@@ -102,7 +153,8 @@ function checkBatchUsage(regions: readonly string[], options: BriefOptions, cwd:
  * @param context - as for `runBrief`, plus `onProgress` for the per-region lines.
  * @returns each region's outcome and the overview's paths.
  * @throws UsageError for bad usage of the whole batch (`--out`, a region given twice, two folders
- *   of the same name, an overview that exists without `--force`, a browser that cannot start);
+ *   of the same name, an `--out-dir` that cannot be made or written into, an overview that exists
+ *   without `--force`, a browser that cannot start);
  *   a region's own problems never throw.
  * @example
  * await runBriefBatch(["north", "south"], { outDir: "out" }, { cwd: process.cwd(), today: new Date(), env: process.env });
@@ -114,7 +166,8 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
     const joined = join(outDir, name);
     return isAbsolute(joined) || resolve(context.cwd) === process.cwd() ? joined : join(context.cwd, joined);
   };
-  // The overview folder must take files before any work is done.
+  // The folder is made (with its parents, as mkdir -p) and must take files before any work is done.
+  await ensureOutDir(outDir, context.cwd);
   try {
     await checkOutputTargets([shownDir("briefing-overview-check.pdf")], { replace: true });
   } catch (error) {
@@ -146,7 +199,7 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
         ? await briefInWorkers(regions, { ...options, outDir }, context, launching, threads, report)
         : await briefInThread(regions, { ...options, outDir }, context, launching, report);
     await launching; // rethrows a launch failure (BrowserNotFoundError → usage error in the action)
-    const { coreCautions, failedOverviewRow, overviewCsv, overviewHtml, overviewRowFromOutlook } = await import("../briefing/overview.js");
+    const { coreCautions, failedOverviewRow, overviewCsv, overviewFooterText, overviewHtml, overviewRowFromOutlook } = await import("../briefing/overview.js");
     const rows = outcomes.map((outcome) =>
       outcome.ok ? overviewRowFromOutlook(outcome.result.outlook, outcome.region, outcome.result.pdfPath) : failedOverviewRow(outcome.region, outcome.problems),
     );
@@ -171,7 +224,7 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
     });
     const printed = await (await launching).print(html, {
       paper: options.paper?.toLowerCase() === "letter" ? "letter" : "a4",
-      footerHtml: escapeHtml(`Overview of ${rows.length} regions · statistical outlook, not an official forecast`),
+      footerHtml: escapeHtml(overviewFooterText(rows)),
       footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]),
     });
     try {

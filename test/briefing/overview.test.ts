@@ -1,18 +1,33 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { coreCautions, failedOverviewRow, overviewCsv, overviewHtml, overviewRowFromOutlook, sortOverviewRows } from "../../src/briefing/overview.js";
+import {
+  coreCautions,
+  failedOverviewRow,
+  overviewCsv,
+  overviewDateline,
+  overviewDateNotes,
+  overviewFooterText,
+  overviewHtml,
+  overviewRowFromOutlook,
+  overviewSkill,
+  sortOverviewRows,
+} from "../../src/briefing/overview.js";
 
-function outlookJson(name: string, estimate: number | null, upper: number | null) {
+function outlookJson(name: string, estimate: number | null, upper: number | null, dates: { issued?: string; season?: number } = {}) {
+  const hasSkill = estimate !== null && estimate > 0.3;
   return {
     schema: "firephase.outlook/1",
-    issued: "2027-03-10",
-    season: 2027,
+    issued: dates.issued ?? "2027-03-10",
+    season: dates.season ?? 2027,
     region: { name },
     baseRate: { estimate: 0.1, lower: 0.07, upper: 0.15 },
+    current: [{ index: "ENSO", value: 1.2, label: "warm" }],
     fireYear: { estimate, lower: estimate === null ? null : estimate / 2, upper, basis: `the years like ${name}` },
-    hindcast: { hasSkill: estimate !== null && estimate > 0.3, verdict: `Verdict of ${name}. More words.` },
+    hindcast: { hasSkill, brierSkillScore: hasSkill ? 0.06 : -0.01, skillPValue: hasSkill ? 0.002 : 0.6, verdict: `Verdict of ${name}. More words.` },
   };
 }
+
+const PAGE = { cautions: ["Caution one."], madeAt: "2027-03-10T08:15:42.000Z", toolVersion: "9.8.7", fontCss: "" };
 
 describe("overviewRowFromOutlook(outlook JSON, folder, pdf)", () => {
   it("reads the headline odds, base rate, skill and basis as the JSON holds them", () => {
@@ -26,11 +41,33 @@ describe("overviewRowFromOutlook(outlook JSON, folder, pdf)", () => {
       chance: { estimate: 0.35, lower: 0.175, upper: 0.5 },
       baseRate: { estimate: 0.1, lower: 0.07, upper: 0.15 },
       hasSkill: true,
+      skill: "Some skill",
       verdict: "Verdict of North. More words.",
       basis: "the years like North",
       pdf: "/out/north.pdf",
       problem: null,
     });
+  });
+});
+
+describe("overviewSkill(outlook JSON): the verdict in words from the structured hindcast fields", () => {
+  const base = outlookJson("North", 0.2, 0.3);
+  const withHindcast = (hindcast: Record<string, unknown>, current: unknown[] = base.current) => ({ ...base, current, hindcast: { verdict: "Any sentence. At all.", ...hindcast } });
+  it.each([
+    ["BSS 0.06, p = 0.002, hasSkill", "Some skill", withHindcast({ hasSkill: true, brierSkillScore: 0.06, skillPValue: 0.002 })],
+    ["BSS 0.03 but p = 0.31 (chance reaches it)", "No skill", withHindcast({ hasSkill: false, brierSkillScore: 0.03, skillPValue: 0.31 })],
+    ["BSS −0.02, p = 0.8", "No skill", withHindcast({ hasSkill: false, brierSkillScore: -0.02, skillPValue: 0.8 })],
+    ["scores but no chance test, with its reason", "Not tested", withHindcast({ hasSkill: false, brierSkillScore: 0.04, skillPValue: null, skillPValueReason: "skipped past the work bound" })],
+    ["no Brier skill score (too few years)", "Too little data", withHindcast({ hasSkill: false, brierSkillScore: null, skillPValue: null, skillPValueReason: "too few years" })],
+    ["a score but no p and no reason", "Too little data", withHindcast({ hasSkill: false, brierSkillScore: 0.04, skillPValue: null })],
+    ["no current index value (the average year)", "Does not apply", withHindcast({ hasSkill: false, brierSkillScore: 0.01, skillPValue: 0.4 }, [])],
+    ["no hindcast object", null, { ...base, hindcast: undefined }],
+  ] as const)("%s → %s", (_, expected, json) => {
+    expect(overviewSkill(json)).toBe(expected);
+  });
+
+  it("never reads the sentence: a verdict sentence saying 'Some skill' with hasSkill false is 'No skill'", () => {
+    expect(overviewSkill(withHindcast({ hasSkill: false, brierSkillScore: 0.03, skillPValue: 0.2, verdict: "Some skill: …" }))).toBe("No skill");
   });
 });
 
@@ -58,12 +95,12 @@ describe("overviewCsv(rows)", () => {
     ];
     const lines = overviewCsv(rows).split("\n");
     expect(lines[0]).toBe(
-      "rank,region,folder,status,season,issued,chance,chance_lower,chance_upper,base_rate,base_rate_lower,base_rate_upper,has_skill,skill_verdict,basis,pdf,problem",
+      "rank,region,folder,status,season,issued,chance,chance_lower,chance_upper,base_rate,base_rate_lower,base_rate_upper,has_skill,skill,skill_verdict,basis,pdf,problem",
     );
     expect(lines[1]).toBe(
-      `1,"'=HYPERLINK(""x"")","ridge, east",briefed,2027,2027-03-10,0.123456789,0.0617283945,0.2,0.1,0.07,0.15,no,"Verdict of =HYPERLINK(""x""). More words.","the years like =HYPERLINK(""x"")",,`,
+      `1,"'=HYPERLINK(""x"")","ridge, east",briefed,2027,2027-03-10,0.123456789,0.0617283945,0.2,0.1,0.07,0.15,no,No skill,"Verdict of =HYPERLINK(""x""). More words.","the years like =HYPERLINK(""x"")",,`,
     );
-    expect(lines[2]).toBe(`,bad,bad,failed,,,,,,,,,,,,,"bad/region.json:3: name is ""-1"""`);
+    expect(lines[2]).toBe(`,bad,bad,failed,,,,,,,,,,,,,,"bad/region.json:3: name is ""-1"""`);
     expect(lines[3]).toBe("");
   });
 });
@@ -95,8 +132,78 @@ describe("overviewHtml(rows, options)", () => {
     expect(html.indexOf("High &amp; Dry")).toBeLessThan(html.indexOf("&lt;script&gt;x"));
     expect(html).toContain("bad/region.json:3: &lt;b&gt;");
     expect(html).toContain("Never for &lt;evacuation&gt;.");
-    expect(html).toContain("2 regions briefed, 1 not briefed · 2027 fire season · issued 2027-03-10");
+    expect(html).toContain("2 regions briefed, 1 not briefed");
     expect(html).not.toMatch(/(src|href)=["']?https?:/);
     expect(html).toContain("default-src 'none'");
+  });
+
+  it("writes the hindcast column as a short verdict, never the verdict sentence cut off", () => {
+    const long = { ...outlookJson("North", 0.4, 0.6), hindcast: { hasSkill: true, brierSkillScore: 0.06, skillPValue: 0.002, verdict: `Some skill: ${"a long sentence ".repeat(20)}.` } };
+    const html = overviewHtml([overviewRowFromOutlook(long, "north", null), overviewRowFromOutlook(outlookJson("South", 0.1, 0.2), "south", null)], PAGE);
+    expect(html).toContain('<td class="skill">Some skill</td>');
+    expect(html).toContain('<td class="skill">No skill</td>');
+    expect(html).not.toContain("a long sentence");
+    expect(html).not.toContain("…");
+    expect(html).toContain("<th>Hindcast skill</th>");
+  });
+
+  it("dates the page as the single briefings do: 'Issued 10 March 2027 for the 2027 fire season', 'Made 10 March 2027, 08:15 UTC'", () => {
+    const rows = [overviewRowFromOutlook(outlookJson("North", 0.4, 0.6), "north", null)];
+    const html = overviewHtml(rows, PAGE);
+    expect(html).toContain('<p class="dateline"><strong>Issued 10 March 2027</strong> for the 2027 fire season</p>');
+    expect(html).toContain("1 region briefed · Made 10 March 2027, 08:15 UTC with firephase 9.8.7.");
+    expect(html).not.toContain("2027-03-10T08:15");
+    expect(overviewFooterText(rows)).toBe("Overview of 1 region · fire-season outlook 2027 · Issued 10 March 2027");
+    expect(overviewDateNotes(rows)).toEqual([]);
+    expect(html).not.toContain('class="dates-differ"');
+  });
+});
+
+describe("overviewDateNotes(rows), overviewDateline(rows), overviewFooterText(rows): regions of different dates or seasons", () => {
+  const rows = [
+    overviewRowFromOutlook(outlookJson("North", 0.4, 0.6, { issued: "2027-03-15", season: 2027 }), "north", null),
+    overviewRowFromOutlook(outlookJson("South", 0.2, 0.3, { issued: "2027-03-10", season: 2027 }), "south", null),
+    overviewRowFromOutlook(outlookJson("East", 0.3, 0.4, { issued: "2027-03-10", season: 2028 }), "east", null),
+    failedOverviewRow("bad", ["bad/region.json:3: oops"]),
+  ];
+
+  it("says plainly which regions were issued on which date and for which season, dates and seasons ascending", () => {
+    expect(overviewDateNotes(rows)).toEqual([
+      "Regions were issued on different dates: 10 March 2027 (East, South); 15 March 2027 (North). Each region's odds use what was known on its own date.",
+      "The regions' fire seasons differ: 2027 (North, South); 2028 (East). Odds for different seasons are not the same question: compare those rows with care.",
+    ]);
+    expect(overviewDateNotes(rows.slice(1, 2).concat(rows.slice(0, 1)))).toHaveLength(1); // same season, two dates
+    expect(overviewDateline(rows)).toEqual({ issuedText: "Issued on 2 different dates, 10 March 2027 to 15 March 2027", seasonText: "for the 2027 and 2028 fire seasons" });
+    expect(overviewFooterText(rows)).toBe("Overview of 4 regions · fire-season outlooks 2027 and 2028 · Issued 10 March 2027 to 15 March 2027");
+  });
+
+  it("prints the notes above the table and each row's own issue date and season", () => {
+    const html = overviewHtml(rows, PAGE);
+    expect(html).toContain('<div class="dates-differ"><p>Regions were issued on different dates: 10 March 2027 (East, South); 15 March 2027 (North).');
+    expect(html.indexOf("dates-differ\">")).toBeLessThan(html.indexOf("<table>"));
+    expect(html).toContain('<div class="muted small">north</div><div class="muted small">Issued 15 March 2027</div><div class="muted small">2027 season</div>');
+    expect(html).toContain('<div class="muted small">east</div><div class="muted small">Issued 10 March 2027</div><div class="muted small">2028 season</div>');
+    // Only what differs: one season, two dates.
+    const sameSeason = overviewHtml(rows.slice(0, 2), PAGE);
+    expect(sameSeason).toContain('<div class="muted small">north</div><div class="muted small">Issued 15 March 2027</div></td>');
+    expect(sameSeason).not.toContain("2027 season</div>");
+  });
+
+  it("names a region by its folder too when another region has the same name", () => {
+    const twins = [
+      overviewRowFromOutlook(outlookJson("Ridge", 0.4, 0.6, { issued: "2027-03-15" }), "copies/ridge-a", null),
+      overviewRowFromOutlook(outlookJson("Ridge", 0.2, 0.3), "copies/ridge-b", null),
+    ];
+    expect(overviewDateNotes(twins)[0]).toBe(
+      "Regions were issued on different dates: 10 March 2027 (Ridge in copies/ridge-b); 15 March 2027 (Ridge in copies/ridge-a). Each region's odds use what was known on its own date.",
+    );
+  });
+
+  it("lists at most five regions per date, then counts the rest", () => {
+    const many = ["A", "B", "C", "D", "E", "F", "G"].map((name) => overviewRowFromOutlook(outlookJson(name, 0.2, 0.3), name.toLowerCase(), null));
+    const other = overviewRowFromOutlook(outlookJson("H", 0.2, 0.3, { issued: "2027-03-01" }), "h", null);
+    expect(overviewDateNotes([...many, other])[0]).toBe(
+      "Regions were issued on different dates: 1 March 2027 (H); 10 March 2027 (A, B, C, D, E and 2 more). Each region's odds use what was known on its own date.",
+    );
   });
 });

@@ -2,7 +2,8 @@ import { cpSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writ
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { overviewNames, runBriefBatch } from "../../src/cli/briefBatch.js";
+import { overviewSkill } from "../../src/briefing/overview.js";
+import { outDirProblem, overviewNames, runBriefBatch } from "../../src/cli/briefBatch.js";
 import { UsageError } from "../../src/cli/errors.js";
 import { jsonLine } from "../../src/cli/outlookBatch.js";
 import { flatText, pdfPageTexts } from "../briefing/pdfText.js";
@@ -46,8 +47,7 @@ afterAll(() => {
 
 describe("firephase brief <region> <region> <region> (one browser, an overview)", () => {
   it("briefs the two good regions, reports the bad one with its file:line problem, writes the overview and exits 1", async () => {
-    const out = join(work, "out");
-    mkdirSync(out);
+    const out = join(work, "out"); // not there yet: --out-dir makes it
     const run = await runInProcess(["brief", north, bad, south, "--out-dir", out, "--no-keep", "--issued", ISSUED, "--values", values[0] as string]);
     expect(run.code).toBe(1);
     const names = overviewNames(2027, ISSUED);
@@ -71,6 +71,7 @@ describe("firephase brief <region> <region> <region> (one browser, an overview)"
     const lines = outlooks.stdout.trimEnd().split("\n");
     expect(lines).toHaveLength(2);
     const json = lines.map((line) => JSON.parse(line) as { region: { name: string }; fireYear: { estimate: number; lower: number; upper: number; basis: string }; baseRate: { estimate: number; lower: number; upper: number }; hindcast: { verdict: string; hasSkill: boolean } });
+    const skills = json.map((outlook) => overviewSkill(outlook));
     expect(lines[0]).toBe(jsonLine(json[0]).trimEnd()); // one compact object per line
     const [header, ...rows] = parseCsv(readFileSync(join(out, names.csv), "utf8"));
     const column = (name: string): number => (header ?? []).indexOf(name);
@@ -86,6 +87,9 @@ describe("firephase brief <region> <region> <region> (one browser, an overview)"
       expect(Number(row[column("base_rate_lower")])).toBe(outlook?.baseRate.lower);
       expect(Number(row[column("base_rate_upper")])).toBe(outlook?.baseRate.upper);
       expect(row[column("skill_verdict")]).toBe(outlook?.hindcast.verdict);
+      expect(row[column("skill")]).toBe(overviewSkill(outlook));
+      expect(row[column("season")]).toBe("2027");
+      expect(row[column("issued")]).toBe(ISSUED);
       expect(row[column("basis")]).toBe(outlook?.fireYear.basis);
       expect(row[column("status")]).toBe("briefed");
     }
@@ -107,6 +111,17 @@ describe("firephase brief <region> <region> <region> (one browser, an overview)"
     expect(text.indexOf(first)).toBeGreaterThan(-1);
     expect(text.indexOf(first)).toBeLessThan(text.indexOf(second));
     expect(text).toContain("Not briefed");
+    // The hindcast column is the short verdict, never the verdict sentence cut off.
+    for (const skill of skills) expect(["Some skill", "No skill", "Not tested", "Too little data", "Does not apply"]).toContain(skill);
+    for (const skill of skills) expect(text).toContain(`${skill}`);
+    expect(text).not.toContain("…");
+    expect(text).not.toContain(json[0]?.hindcast.verdict.slice(0, 60));
+    // Dated as the single briefings are: long issue date, the moment made in UTC, the footer.
+    expect(text).toContain("Issued 10 March 2027 for the 2027 fire season");
+    expect(text).toMatch(/2 regions briefed, 1 not briefed · Made \d{1,2} [A-Z][a-z]+ \d{4}, \d{2}:\d{2} UTC with firephase /);
+    expect(text).not.toMatch(/\d{4}-\d{2}-\d{2}T\d{2}:/);
+    expect(text).toContain("Overview of 3 regions · fire-season outlook 2027 · Issued 10 March 2027");
+    expect(text).not.toContain("Regions were issued on different dates");
   }, 180_000);
 
   it("gives the same overview when worker threads compute the regions (the built CLI, FIREPHASE_THREADS=2)", async () => {
@@ -124,7 +139,12 @@ describe("firephase brief <region> <region> <region> (one browser, an overview)"
     expect(readdirSync(bad)).not.toContain("issued");
     expect(readdirSync(threaded).sort()).toEqual(readdirSync(inThread).sort());
     const names = overviewNames(2027, ISSUED);
-    const withoutPdf = (folder: string): string[][] => parseCsv(readFileSync(join(folder, names.csv), "utf8")).map((row) => row.filter((_, i) => i !== 15));
+    const withoutPdf = (folder: string): string[][] => {
+      const [header, ...rows] = parseCsv(readFileSync(join(folder, names.csv), "utf8"));
+      const pdf = (header ?? []).indexOf("pdf");
+      expect(pdf).toBeGreaterThan(-1);
+      return [header ?? [], ...rows].map((row) => row.filter((_, i) => i !== pdf));
+    };
     expect(withoutPdf(threaded)).toEqual(withoutPdf(inThread));
     expect(run.stderr).toContain(`[2/3] ${bad}: failed (1 problem):`);
   }, 240_000);
@@ -140,6 +160,66 @@ describe("firephase brief <region> <region> <region> (one browser, an overview)"
     expect(run.code).toBe(2);
     expect(run.stderr).toContain("firephase: --out names one PDF");
   });
+
+  it("makes a missing --out-dir with its parents before any work (one region too), and says what is in the way when it cannot (exit 2)", async () => {
+    const nested = join(work, "made", "2027", "march");
+    const run = await runInProcess(["brief", north, south, "--out-dir", nested, "--no-keep", "--issued", ISSUED, "--browser", "/bin/false"]);
+    expect(run.code).toBe(2); // the browser fails, after the folder was made
+    expect(readdirSync(nested)).toEqual([]);
+    const single = join(work, "made-single", "a", "b");
+    const one = await runInProcess(["brief", north, "--out-dir", single, "--no-keep", "--issued", ISSUED, "--browser", "/bin/false"]);
+    expect(one.code).toBe(2);
+    expect(readdirSync(single)).toEqual([]);
+
+    const file = join(work, "a-file");
+    writeFileSync(file, "not a folder\n");
+    for (const [outDir, blocking] of [
+      [file, file],
+      [join(file, "sub", "deeper"), file],
+    ] as const) {
+      for (const regionsGiven of [[north, south], [north]]) {
+        const refused = await runInProcess(["brief", ...regionsGiven, "--out-dir", outDir, "--no-keep", "--issued", ISSUED]);
+        expect(refused.code, outDir).toBe(2);
+        expect(refused.stderr).toBe(`firephase: --out-dir: cannot make the folder ${outDir}: ${blocking} is not a folder (a file is in the way)\n(run firephase brief --help for usage)\n`);
+      }
+    }
+    // Written as typed: a relative folder is named relative.
+    await expect(runBriefBatch([north, south], { outDir: join("a-file", "x") }, { cwd: work, today: new Date(2027, 2, 10), env: { PATH: process.env.PATH } })).rejects.toThrow(
+      new UsageError(`--out-dir: cannot make the folder ${join("a-file", "x")}: a-file is not a folder (a file is in the way)`),
+    );
+    // No permission cannot be staged for a test run as root; the words for it:
+    expect(outDirProblem(Object.assign(new Error("EACCES: permission denied"), { code: "EACCES" }), { shown: "/srv/fire", isFolder: true })).toBe("no permission to make folders in /srv/fire");
+    expect(outDirProblem(Object.assign(new Error("EROFS"), { code: "EROFS" }), { shown: "/mnt", isFolder: true })).toBe("the file system is read-only");
+  }, 60_000);
+
+  it("says so plainly when the regions were issued on different dates and for different seasons (CSV: each row's season and issue date)", async () => {
+    // Dates from each region's own region.json: east keeps 2027-03-10 and names the 2028 season; west is issued today, 2027-03-15.
+    const east = join(work, "dates", "east");
+    const west = join(work, "dates", "west");
+    cpSync(north, east, { recursive: true });
+    cpSync(north, west, { recursive: true });
+    rmSync(join(east, "issued"), { recursive: true, force: true });
+    rmSync(join(west, "issued"), { recursive: true, force: true });
+    const region = JSON.parse(readFileSync(join(east, "region.json"), "utf8")) as Record<string, unknown>;
+    writeFileSync(join(east, "region.json"), JSON.stringify({ ...region, name: "East Bench", outlook: { issued: "2027-03-10", season: 2028 } }));
+    writeFileSync(join(west, "region.json"), JSON.stringify({ ...region, name: "West Bench" }));
+    const out = join(work, "dates", "out");
+    const result = await runBriefBatch([east, west], { outDir: out, keep: false, values: values[0] as string }, { cwd: work, today: new Date(2027, 2, 15), env: { PATH: process.env.PATH } });
+    expect(result.failed).toBe(0);
+    // The overview is named after the first region briefed.
+    expect(result.overviewPdf).toBe(join(out, overviewNames(2028, "2027-03-10").pdf));
+    const [header, ...rows] = parseCsv(readFileSync(result.overviewCsv ?? "", "utf8"));
+    const column = (name: string): number => (header ?? []).indexOf(name);
+    const byName = new Map(rows.map((row) => [row[column("region")], row]));
+    expect([byName.get("East Bench")?.[column("season")], byName.get("East Bench")?.[column("issued")]]).toEqual(["2028", "2027-03-10"]);
+    expect([byName.get("West Bench")?.[column("season")], byName.get("West Bench")?.[column("issued")]]).toEqual(["2027", "2027-03-15"]);
+    const text = flatText(await pdfPageTexts(new Uint8Array(readFileSync(result.overviewPdf ?? "")))).replace(/\s+/g, " ");
+    expect(text).toContain("Regions were issued on different dates: 10 March 2027 (East Bench); 15 March 2027 (West Bench).");
+    expect(text).toContain("The regions' fire seasons differ: 2027 (West Bench); 2028 (East Bench).");
+    expect(text).toContain("Issued on 2 different dates, 10 March 2027 to 15 March 2027 for the 2027 and 2028 fire seasons");
+    expect(text).toContain("Issued 15 March 2027 2027 season"); // each row's own, under its name
+    expect(text).toContain("Issued 10 March 2027 2028 season");
+  }, 120_000);
 
   it("stops with exit 2 and one clear message when the browser cannot start (--browser /bin/false)", async () => {
     const out = join(work, "out-false");
