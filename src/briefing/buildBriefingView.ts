@@ -911,8 +911,9 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
       `The odds describe ${period.first}–${period.last}; land use, fire suppression and climate have changed since, so the past may not repeat.`,
       "Even at higher odds most seasons are not high-fire years, and a quiet outlook does not mean a quiet season.",
     ],
-    // A provisional value is said in the index table (tag and months), not again here.
-    readWithCare: outlook.warnings.filter((warning) => warning.code !== "value-provisional").map((warning) => printedText(warning.message)),
+    // A provisional value is said in the index table (tag and months), not again here; a briefing
+    // dated ahead of the day it is made is said in the data notes (beside "Made …"), keeping page 1 to one page.
+    readWithCare: outlook.warnings.filter((warning) => warning.code !== "value-provisional" && warning.code !== "issued-ahead").map((warning) => printedText(warning.message)),
     indices: calibration.indices.map((index) => buildIndexView(index, calibration, outlook, valueMap(index.name))),
     analogs: {
       available: outlook.analogs.length > 0,

@@ -1,4 +1,5 @@
 import { addYears } from "date-fns/addYears";
+import { differenceInCalendarDays } from "date-fns/differenceInCalendarDays";
 import { format } from "date-fns/format";
 import { getMonth } from "date-fns/getMonth";
 import { isValid } from "date-fns/isValid";
@@ -129,7 +130,8 @@ export interface OutlookDates {
  *   names neither, which is said in a note), otherwise ignored with a note that names them;
  * - plausible range: the issue date and the season may not lie before the first year of the index
  *   records nor more than a year after today (season at most the season of today + 1).
- * An ignored region.json date is reported in a note.
+ * An ignored region.json date is reported in a note, and so is an issue date after today (code
+ * `issued-ahead`: the briefing is dated ahead of the day it is made; allowed up to a year ahead).
  *
  * @param workspace - the loaded region
  * @param options - `--issued` and `--season` as typed
@@ -184,6 +186,16 @@ export function resolveOutlookDates(workspace: Workspace, options: OutlookOption
   }
   const issued = format(issuedDate, "yyyy-MM-dd");
   const issuedSeason = seasonOfIssueDate(issuedDate);
+  if (issued > todayText) {
+    // Allowed (up to a year ahead), but a planner must see it: the files are read as they are today.
+    const days = differenceInCalendarDays(issuedDate, today);
+    notes.push({
+      code: "issued-ahead",
+      message:
+        `dated ahead: issued ${issued}, ${days} day${days === 1 ? "" : "s"} after it was made on ${todayText}; ` +
+        `the index values are the files' as of ${todayText}, with every month that ends before the issue date counted as complete`,
+    });
+  }
 
   let season: number;
   if (options.season !== undefined) {

@@ -230,6 +230,12 @@ describe("buildBriefingView(inputs)", () => {
     expect(html.indexOf("46.5 standard deviations")).toBeGreaterThan(care);
     expect(renderBriefingHtml(view)).not.toContain("Read with care");
   });
+  it("says a briefing dated ahead in the data notes (beside the moment made), not in page 1's 'Read with care'", () => {
+    const message = "dated ahead: issued 2027-03-10, 97 days after it was made on 2026-12-03; the index values are the files' as of 2026-12-03, with every month that ends before the issue date counted as complete";
+    const ahead = buildBriefingView({ ...sampleBriefingInputs({ outlookWarnings: [{ code: "issued-ahead", message }] }), toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
+    expect(ahead.readWithCare).toEqual([]);
+    expect(ahead.dataNotes).toContain(`${message}.`);
+  });
   it("with no current values, page 1 says the skill score does not apply (not 'no skill')", () => {
     const average = buildBriefingView({ ...sampleBriefingInputs({ noCurrentValues: true }), toolVersion: "0.1.0", safetyMarkdown: "", paper: "a4" });
     expect(average.skill.applies).toBe(false);

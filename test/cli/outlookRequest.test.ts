@@ -72,9 +72,34 @@ describe("resolveOutlookDates(workspace, options, today) with a fixed clock", ()
     expect(resolveOutlookDates(withOutlook({}), {}, day(1711, 11, 5))).toMatchObject({ issued: "1711-11-05", season: 1712 });
   });
 
-  it("uses region.json's issue date and season when they are for today's season or later", () => {
+  it("uses region.json's issue date and season when they are for today's season or later (a later date is noted as dated ahead)", () => {
     const dates = resolveOutlookDates(withOutlook({ issued: "1712-03-01", season: 1712, values: { ENSO: 1 } }), {}, today);
-    expect(dates).toMatchObject({ issued: "1712-03-01", season: 1712, useFileValues: true, notes: [] });
+    expect(dates).toMatchObject({ issued: "1712-03-01", season: 1712, useFileValues: true });
+    expect(dates.notes.map((note) => note.code)).toEqual(["issued-ahead"]);
+    expect(resolveOutlookDates(withOutlook({ issued: "1712-02-20", season: 1712, values: { ENSO: 1 } }), {}, today).notes).toEqual([]);
+  });
+
+  it("notes an issue date after today as dated ahead, with the days and what the files are read as, and does not refuse it", () => {
+    const dates = resolveOutlookDates(withOutlook({}), { issued: "1712-03-10" }, today);
+    expect(dates).toMatchObject({ issued: "1712-03-10", season: 1712 });
+    expect(dates.notes).toEqual([
+      {
+        code: "issued-ahead",
+        message:
+          "dated ahead: issued 1712-03-10, 19 days after it was made on 1712-02-20; the index values are the files' as of 1712-02-20, with every month that ends before the issue date counted as complete",
+      },
+    ]);
+    expect(resolveOutlookDates(withOutlook({}), { issued: "1712-02-21" }, today).notes[0]?.message).toMatch(/^dated ahead: issued 1712-02-21, 1 day after it was made on 1712-02-20;/);
+    // Today and earlier are not ahead; a year ahead is still allowed (and noted), a day more refused.
+    expect(resolveOutlookDates(withOutlook({}), { issued: "1712-02-20" }, today).notes).toEqual([]);
+    expect(resolveOutlookDates(withOutlook({}), { issued: "1711-12-01" }, today).notes).toEqual([]);
+    expect(resolveOutlookDates(withOutlook({}), { issued: "1713-02-20" }, today).notes.map((note) => note.code)).toEqual(["issued-ahead"]);
+    expect(() => resolveOutlookDates(withOutlook({}), { issued: "1713-02-21" }, today)).toThrow(UsageError);
+  });
+
+  it("passes the dated-ahead note on to the outlook request (so outlook, brief and the JSON warnings carry it)", () => {
+    const request = resolveOutlookRequest(withOutlook({}), { issued: "1712-03-10", values: "ENSO=1,NAO=0" }, today);
+    expect(request.notes?.map((note) => note.code)).toEqual(["issued-ahead"]);
   });
 
   it("ignores last season's region.json date, season and values with notes naming them", () => {
