@@ -160,6 +160,39 @@ function coverage(workspace: Workspace, position: number, activity: FireActivity
   };
 }
 
+/**
+ * The calibration period `calibrate`, `outlook` and `brief` will use, from the report alone (the
+ * same rule as the calibration, which `check` does not load): region.json's `calibration` when
+ * set; else the full overlap of the usable fire record and the indices — from the later of the
+ * first usable fire-record year and the first year any index has a value, to the earlier of the
+ * last of each. `years` counts the usable fire-record years inside it (those calibrated).
+ *
+ * @param report - from {@link buildCheckReport}
+ * @returns the period and its usable years, with where it comes from; null when the default
+ *   period is empty (the record and the indices do not overlap)
+ * @example
+ * calibrationYears(report); // the "valid" fixture => { first: 1702, last: 1710, years: 9, fromRegionJson: false }
+ */
+export function calibrationYears(report: CheckReport): { readonly first: number; readonly last: number; readonly years: number; readonly fromRegionJson: boolean } | null {
+  const usable = report.activity.filter((row) => row.sitesRecording >= report.fireRecord.minSitesRecording).map((row) => row.year);
+  let first: number;
+  let last: number;
+  if (report.calibration !== null) {
+    ({ first, last } = report.calibration);
+  } else {
+    let indexFirst = Infinity;
+    let indexLast = -Infinity;
+    for (const index of report.indices) {
+      if (index.first !== null && index.first < indexFirst) indexFirst = index.first;
+      if (index.last !== null && index.last > indexLast) indexLast = index.last;
+    }
+    first = Math.max(usable[0] ?? Infinity, indexFirst);
+    last = Math.min(usable[usable.length - 1] ?? -Infinity, indexLast);
+    if (!(first <= last)) return null;
+  }
+  return { first, last, years: usable.filter((year) => year >= first && year <= last).length, fromRegionJson: report.calibration !== null };
+}
+
 const span = (first: number | null, last: number | null): string =>
   first === null || last === null ? "none" : `${first}–${last} (${last - first + 1} years)`;
 
@@ -219,11 +252,15 @@ export function formatCheckReport(report: CheckReport): string {
       ]),
     ),
   );
+  const period = calibrationYears(report);
+  const usableYears = (years: number): string => `${years} usable year${years === 1 ? "" : "s"}`;
   out.push(
     "",
-    report.calibration === null
-      ? "Calibration period: the overlap of the usable fire record and the indices (default)"
-      : `Calibration period: ${report.calibration.first}–${report.calibration.last} (set in region.json)`,
+    period === null
+      ? "Calibration period: none (default: the overlap of the usable fire record and the indices, which do not overlap)"
+      : period.fromRegionJson
+        ? `Calibration period: ${period.first}–${period.last}, ${usableYears(period.years)} (set in region.json)`
+        : `Calibration period: ${period.first}–${period.last}, ${usableYears(period.years)} (default: the overlap of the usable fire record and the indices; set "calibration" in region.json to choose)`,
   );
   const count = report.warnings.length;
   out.push(count === 0 ? "Warnings: none" : `Warnings: ${count} (listed on stderr)`);

@@ -155,6 +155,39 @@ describe("node dist/cli/main.js (the built bin, spawned)", () => {
   });
 });
 
+describe("firephase check: the calibration period it will use", () => {
+  it("prints the default period's years when region.json gives none, and the set period with its usable years", async () => {
+    const run = await runInProcess(["check", VALID]);
+    expect(run.stdout).toContain(
+      'Calibration period: 1702–1710, 9 usable years (default: the overlap of the usable fire record and the indices; set "calibration" in region.json to choose)\n',
+    );
+    const demo = await runInProcess(["check", "demo-region"]);
+    expect(demo.stdout).toContain("Calibration period: 1720–1990, 271 usable years (set in region.json)\n");
+  });
+
+  it("calibrationYears(report) is the period the calibration uses (calibrationPeriod), default or set, and null when none", async () => {
+    const { buildCheckReport, calibrationYears, formatCheckReport } = await import("../../src/cli/check.js");
+    const { calibrationPeriod } = await import("../../src/calibrate/calibrationPeriod.js");
+    const { compositeFireRecord } = await import("../../src/record/composite.js");
+    const { loadWorkspace } = await import("../../src/workspace/loadWorkspace.js");
+    const demo = await loadWorkspace("demo-region");
+    const cases = [
+      await loadWorkspace(VALID),
+      demo,
+      { ...demo, settings: { ...demo.settings, calibration: null } },
+      { ...demo, settings: { ...demo.settings, calibration: { first: 1500, last: 1800 } } },
+    ];
+    for (const workspace of cases) {
+      const period = calibrationPeriod(workspace.settings, compositeFireRecord(workspace.fireRecord, workspace.settings.fireYears.minSitesRecording), workspace.indices);
+      expect(calibrationYears(buildCheckReport(workspace))).toEqual({ first: period.first, last: period.last, years: period.years.length, fromRegionJson: workspace.settings.calibration !== null });
+    }
+    const report = buildCheckReport(cases[0] as (typeof cases)[0]);
+    const apart = { ...report, indices: report.indices.map((index) => ({ ...index, first: 1800, last: 1810 })) };
+    expect(calibrationYears(apart)).toBeNull();
+    expect(formatCheckReport(apart)).toContain("Calibration period: none (default: the overlap of the usable fire record and the indices, which do not overlap)\n");
+  });
+});
+
 describe("terminalWarnings(warnings, limitKm)", () => {
   it("prints the 5 closest site pairs and counts the rest; other warnings stay whole", async () => {
     const { terminalWarnings } = await import("../../src/cli/check.js");
