@@ -1,17 +1,25 @@
-import { cpSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import fc from "fast-check";
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { runInProcess } from "./helpers.js";
 
 // Regression (issue 13.1): an index named after a built-in object property must be looked up as
 // a plain name everywhere — never read as the inherited property (a function) or as a prototype.
 const NAMES = Object.getOwnPropertyNames(Object.prototype);
 
+/** Temporary folders made by this file, removed after it. */
+const made: string[] = [];
+afterAll(() => {
+  for (const folder of made) rmSync(folder, { recursive: true, force: true });
+});
+
 /** The "valid" fixture with its ENSO index renamed (its column stays "ENSO"), no outlook block. */
 function regionWithIndex(name: string, outlookValues?: Record<string, number>): string {
-  const folder = join(mkdtempSync(join(tmpdir(), "firephase-names-")), "region");
+  const parent = mkdtempSync(join(tmpdir(), "firephase-names-"));
+  made.push(parent);
+  const folder = join(parent, "region");
   cpSync(resolve("test/fixtures/regions/valid"), folder, { recursive: true });
   const text = readFileSync(join(folder, "region.json"), "utf8");
   const settings = JSON.parse(text);

@@ -1,10 +1,21 @@
-import { cpSync, mkdtempSync, writeFileSync } from "node:fs";
+import { cpSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { runInProcess } from "./helpers.js";
 
 const REGION = resolve("test/fixtures/regions/review-small");
+
+/** A region folder inside a new temporary folder, removed after this file. */
+const made: string[] = [];
+afterAll(() => {
+  for (const folder of made) rmSync(folder, { recursive: true, force: true });
+});
+function tempRegion(): string {
+  const parent = mkdtempSync(join(tmpdir(), "firephase-review-"));
+  made.push(parent);
+  return join(parent, "region");
+}
 
 describe("firephase review <region>", () => {
   it("--json prints firephase.review/1 with the promised keys, and the skipped files inside", async () => {
@@ -34,7 +45,7 @@ describe("firephase review <region>", () => {
   });
 
   it("says there is nothing to review in a region without kept outlooks", async () => {
-    const folder = join(mkdtempSync(join(tmpdir(), "firephase-review-")), "region");
+    const folder = tempRegion();
     cpSync(resolve("test/fixtures/regions/valid"), folder, { recursive: true });
     const run = await runInProcess(["review", folder, "--json"]);
     expect(run.code).toBe(0);
@@ -47,7 +58,7 @@ describe("firephase review <region>", () => {
   });
 
   it("skips a named pipe among the kept files without blocking", async () => {
-    const folder = join(mkdtempSync(join(tmpdir(), "firephase-review-")), "region");
+    const folder = tempRegion();
     cpSync(REGION, folder, { recursive: true });
     const { execFileSync } = await import("node:child_process");
     execFileSync("mkfifo", [join(folder, "issued", "pipe.json")]);

@@ -1,8 +1,8 @@
-import { cpSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import fc from "fast-check";
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { jsonText } from "../../src/cli/printJson.js";
 import { terminalSafe } from "../../src/cli/terminalText.js";
 import { runInProcess } from "./helpers.js";
@@ -36,8 +36,16 @@ describe("jsonText(value)", () => {
   });
 });
 
+/** Temporary folders made by this file, removed after it. */
+const made: string[] = [];
+afterAll(() => {
+  for (const folder of made) rmSync(folder, { recursive: true, force: true });
+});
+
 function regionWithText(fields: { name: string; description: string }): string {
-  const folder = join(mkdtempSync(join(tmpdir(), "firephase-ctl-")), "region");
+  const parent = mkdtempSync(join(tmpdir(), "firephase-ctl-"));
+  made.push(parent);
+  const folder = join(parent, "region");
   cpSync(resolve("test/fixtures/regions/valid"), folder, { recursive: true });
   const settings = JSON.parse(readFileSync(join(folder, "region.json"), "utf8"));
   settings.name = fields.name;
