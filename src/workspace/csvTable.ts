@@ -24,6 +24,15 @@ export interface CsvTable {
   readonly rowCount: number;
   /** Comma-separated (RFC 4180 CSV) or whitespace-separated text; "comma" unless the caller allowed whitespace. */
   readonly layout: TableLayout;
+  /** 1-based physical line where data row `row` (0 … rowCount − 1, file order) starts. */
+  lineOf(row: number): number;
+  /**
+   * A reader of some columns, for a caller that reads every row: `read(row, into)` writes the
+   * trimmed text of `columns[j]` in data row `row` to `into[j]` ("" for a column the row does not
+   * reach or the header does not have), the same text as `field(columns[j])` of that row, without
+   * an object per row.
+   */
+  columnReader(columns: readonly string[]): (row: number, into: string[]) => void;
 }
 
 /** Options of {@link readCsvTable}. */
@@ -102,6 +111,8 @@ interface RecordIndex {
   /** Number of fields; negative for a `#` comment line of a CSV file. */
   readonly counts: IntList;
   readonly error: { readonly line: number; readonly message: string } | null;
+  /** One record per physical line, without double quotes (see {@link indexPlainCsv}). */
+  readonly plain: boolean;
 }
 
 const CR = 13;
@@ -112,32 +123,42 @@ const SPACE = 32;
 const TAB = 9;
 const HASH = 35;
 
-interface CsvRecord {
+/** What {@link readCsvRecord} found: one object, overwritten by every call (read it before the next). */
+const RECORD = {
   /** Position after the record and its line break. */
-  next: number;
+  next: 0,
   /** Physical line after the record. */
-  line: number;
-  fieldCount: number;
+  line: 0,
+  fieldCount: 0,
   /** Nothing but spaces and tabs: a blank line. */
-  blank: boolean;
-  error: { line: number; message: string } | null;
+  blank: true,
+  error: null as { line: number; message: string } | null,
+};
+
+/** Position after the line break at `k` (CRLF counts once). */
+const afterBreak = (text: string, k: number): number => (text.charCodeAt(k) === CR && text.charCodeAt(k + 1) === LF ? k + 2 : k + 1);
+
+function endRecord(next: number, line: number, fieldCount: number, blank: boolean, error: { line: number; message: string } | null): typeof RECORD {
+  RECORD.next = next;
+  RECORD.line = line;
+  RECORD.fieldCount = fieldCount;
+  RECORD.blank = blank;
+  RECORD.error = error;
+  return RECORD;
 }
 
 /**
  * Reads one RFC 4180 record starting at `start` on physical line `startLine`. CRLF, LF and a lone
  * CR each end one physical line, inside quoted fields too. With `fields` given, the fields' text
- * is pushed onto it (unquoted, doubled quotes made single); without, only counted.
+ * is pushed onto it (unquoted, doubled quotes made single); without, only counted. The result is
+ * the shared {@link RECORD}.
  */
-function readCsvRecord(text: string, start: number, startLine: number, fields: string[] | null): CsvRecord {
+function readCsvRecord(text: string, start: number, startLine: number, fields: string[] | null): typeof RECORD {
   const n = text.length;
   let i = start;
   let line = startLine;
   let fieldCount = 0;
   let blank = true;
-  const lineBreak = (k: number): number => {
-    line++;
-    return text.charCodeAt(k) === CR && text.charCodeAt(k + 1) === LF ? k + 2 : k + 1;
-  };
   for (;;) {
     let j = i;
     while (j < n && (text.charCodeAt(j) === SPACE || text.charCodeAt(j) === TAB)) j++;
@@ -153,7 +174,7 @@ function readCsvRecord(text: string, start: number, startLine: number, fields: s
             quoteLine === startLine
               ? "a quoted field opened on this line is not closed before the end of the file"
               : `the record starting on this line has a quoted field opened on line ${quoteLine} that is not closed before the end of the file`;
-          return { next: n, line, fieldCount, blank, error: { line: startLine, message } };
+          return endRecord(n, line, fieldCount, blank, { line: startLine, message });
         }
         for (let k = j; k < close; k++) {
           const code = text.charCodeAt(k);
@@ -177,22 +198,20 @@ function readCsvRecord(text: string, start: number, startLine: number, fields: s
         continue;
       }
       if (j >= n || after === CR || after === LF) {
-        return { next: j >= n ? n : lineBreak(j), line, fieldCount, blank, error: null };
+        if (j >= n) return endRecord(n, line, fieldCount, blank, null);
+        return endRecord(afterBreak(text, j), line + 1, fieldCount, blank, null);
       }
-      return { next: n, line, fieldCount, blank, error: { line, message: "a closing quote must be followed by a comma or the end of the line" } };
+      return endRecord(n, line, fieldCount, blank, { line, message: "a closing quote must be followed by a comma or the end of the line" });
     }
     let k = j;
     while (k < n) {
       const code = text.charCodeAt(k);
       if (code === COMMA || code === CR || code === LF) break;
       if (code === QUOTE) {
-        return {
-          next: n,
+        return endRecord(n, line, fieldCount, blank, {
           line,
-          fieldCount,
-          blank,
-          error: { line, message: 'a double quote inside an unquoted field: put the whole field in quotes and write the quote twice ("")' },
-        };
+          message: 'a double quote inside an unquoted field: put the whole field in quotes and write the quote twice ("")',
+        });
       }
       k++;
     }
@@ -204,7 +223,8 @@ function readCsvRecord(text: string, start: number, startLine: number, fields: s
       i = k + 1;
       continue;
     }
-    return { next: k >= n ? n : lineBreak(k), line, fieldCount, blank, error: null };
+    if (k >= n) return endRecord(n, line, fieldCount, blank, null);
+    return endRecord(afterBreak(text, k), line + 1, fieldCount, blank, null);
   }
 }
 
@@ -217,7 +237,7 @@ function indexCsv(text: string): RecordIndex {
   let line = 1;
   while (i < text.length) {
     const record = readCsvRecord(text, i, line, null);
-    if (record.error !== null) return { offsets, lines, counts, error: record.error };
+    if (record.error !== null) return { offsets, lines, counts, error: record.error, plain: false };
     if (!record.blank) {
       let first = i;
       while (text.charCodeAt(first) === SPACE || text.charCodeAt(first) === TAB) first++;
@@ -228,7 +248,52 @@ function indexCsv(text: string): RecordIndex {
     i = record.next;
     line = record.line;
   }
-  return { offsets, lines, counts, error: null };
+  return { offsets, lines, counts, error: null, plain: false };
+}
+
+/**
+ * The record index of a CSV text with no double quote and no CR other than that of a CRLF, or
+ * null for any other text. Such a text has one record per physical line and a record's fields are
+ * its text between commas, so the records are found with the built-in `indexOf` (far quicker than
+ * a scan character by character while the reader is not yet compiled). Gives the same records as
+ * {@link indexCsv}; the fields are cut out later by {@link plainCsvFields}.
+ */
+function indexPlainCsv(text: string): RecordIndex | null {
+  if (text.includes('"')) return null;
+  for (let at = text.indexOf("\r"); at >= 0; at = text.indexOf("\r", at + 1)) if (text.charCodeAt(at + 1) !== LF) return null;
+  const offsets = new IntList();
+  const lines = new IntList();
+  const counts = new IntList();
+  let line = 1;
+  // The next comma at or after the current line (each search starts where the last one ended).
+  let comma = text.indexOf(",");
+  for (let start = 0; start < text.length; line++) {
+    const feed = text.indexOf("\n", start);
+    const next = feed < 0 ? text.length : feed + 1;
+    const end = feed < 0 ? text.length : feed > start && text.charCodeAt(feed - 1) === CR ? feed - 1 : feed;
+    let first = start;
+    while (first < end && (text.charCodeAt(first) === SPACE || text.charCodeAt(first) === TAB)) first++;
+    let commas = 0;
+    while (comma >= 0 && comma < end) {
+      commas++;
+      comma = text.indexOf(",", comma + 1);
+    }
+    // Only spaces and tabs: a blank line, skipped.
+    if (first < end || commas > 0) {
+      offsets.push(start);
+      lines.push(line);
+      counts.push(first < end && text.charCodeAt(first) === HASH ? -1 : commas + 1);
+    }
+    start = next;
+  }
+  return { offsets, lines, counts, error: null, plain: true };
+}
+
+/** The fields of the record at `start` of a text that {@link indexPlainCsv} indexed. */
+function plainCsvFields(text: string, start: number): string[] {
+  const feed = text.indexOf("\n", start);
+  const end = feed < 0 ? text.length : feed > start && text.charCodeAt(feed - 1) === CR ? feed - 1 : feed;
+  return text.slice(start, end).split(",");
 }
 
 /** End of the physical line starting at `start` (the position of its CR or LF, or the end). */
@@ -241,9 +306,6 @@ function lineEnd(text: string, start: number): number {
   }
   return k;
 }
-
-/** Position after the line break at `end` (CRLF counts once). */
-const afterBreak = (text: string, end: number): number => (text.charCodeAt(end) === CR && text.charCodeAt(end + 1) === LF ? end + 2 : end + 1);
 
 /** Fields of one whitespace-table line: split on runs of spaces and tabs. */
 const whitespaceFields = (text: string, start: number): string[] => text.slice(start, lineEnd(text, start)).trim().split(/[ \t]+/);
@@ -274,7 +336,7 @@ function indexWhitespace(text: string): RecordIndex {
     line++;
     i = end >= text.length ? text.length : afterBreak(text, end);
   }
-  return { offsets, lines, counts, error: null };
+  return { offsets, lines, counts, error: null, plain: false };
 }
 
 /** The first line that is neither blank nor a `#` line has no comma and no double quote. */
@@ -300,6 +362,65 @@ class TableRow implements CsvRow {
   field(column: string): string {
     const position = this.positions.get(column);
     return position === undefined ? "" : (this.fields[position] ?? "").trim();
+  }
+}
+
+/** Whether a character is printable ASCII other than space: never white space, never trimmed. */
+const isPlainCode = (code: number): boolean => code > SPACE && code < 127;
+
+/** `text.slice(start, end).trim()`, without the second string when nothing is to be trimmed. */
+function trimmedSlice(text: string, start: number, end: number): string {
+  if (end > start && isPlainCode(text.charCodeAt(start)) && isPlainCode(text.charCodeAt(end - 1))) return text.slice(start, end);
+  return text.slice(start, end).trim();
+}
+
+/**
+ * Reads the wanted fields of the CSV record at `start` into `into` (`wanted[f]` = the slot of
+ * field f, or −1). Fast path for a record without a double quote; returns false for a record
+ * with one (the caller then splits it with {@link readCsvRecord}).
+ */
+function readPlainCsvFields(text: string, start: number, wanted: Int32Array, into: string[]): boolean {
+  const n = text.length;
+  let field = 0;
+  let fieldStart = start;
+  for (let i = start; ; i++) {
+    const code = i < n ? text.charCodeAt(i) : LF;
+    if (code === COMMA || code === LF || code === CR) {
+      const slot = field < wanted.length ? (wanted[field] as number) : -1;
+      if (slot >= 0) into[slot] = trimmedSlice(text, fieldStart, i);
+      if (code !== COMMA) return true;
+      field++;
+      fieldStart = i + 1;
+    } else if (code === QUOTE) {
+      return false;
+    }
+  }
+}
+
+/**
+ * Reads the wanted fields of the whitespace-table line at `start` into `into`. Fast path for a
+ * line of printable ASCII, spaces and tabs; returns false for a line with any other character
+ * (the caller then splits it as {@link whitespaceFields} does, which trims Unicode white space).
+ */
+function readPlainWhitespaceFields(text: string, start: number, wanted: Int32Array, into: string[]): boolean {
+  const n = text.length;
+  let field = 0;
+  let fieldStart = -1;
+  for (let i = start; ; i++) {
+    const code = i < n ? text.charCodeAt(i) : LF;
+    if (code === SPACE || code === TAB || code === LF || code === CR) {
+      if (fieldStart >= 0) {
+        const slot = field < wanted.length ? (wanted[field] as number) : -1;
+        if (slot >= 0) into[slot] = text.slice(fieldStart, i);
+        field++;
+        fieldStart = -1;
+      }
+      if (code === LF || code === CR) return true;
+    } else if (isPlainCode(code)) {
+      if (fieldStart < 0) fieldStart = i;
+    } else {
+      return false;
+    }
   }
 }
 
@@ -352,14 +473,15 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
   }
 
   const layout: TableLayout = options.whitespace === true && looksWhitespaceSeparated(text) ? "whitespace" : "comma";
-  const index = layout === "whitespace" ? indexWhitespace(text) : indexCsv(text);
+  const index = layout === "whitespace" ? indexWhitespace(text) : (indexPlainCsv(text) ?? indexCsv(text));
   if (index.error !== null) {
     // After a quoting error the start of the following records is unknown: report this one only.
     problems.add(index.error.line, index.error.message);
     return null;
   }
-  const fieldsAt = (record: number): string[] => {
+  const fieldsAt = (record: number): readonly string[] => {
     const offset = index.offsets.at(record);
+    if (index.plain) return plainCsvFields(text, offset);
     if (layout === "whitespace") return whitespaceFields(text, offset);
     const fields: string[] = [];
     readCsvRecord(text, offset, index.lines.at(record), fields);
@@ -418,7 +540,35 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
       }
     },
   };
-  return { columns, headerLine, rows, rowCount: kept.length, layout };
+  const columnReader = (wantedColumns: readonly string[]): ((row: number, into: string[]) => void) => {
+    // wanted[f] = the slot of header field f; a column asked for twice, or not in the header, is filled separately.
+    const wanted = new Int32Array(columns.length).fill(-1);
+    const others: number[] = [];
+    wantedColumns.forEach((column, slot) => {
+      const position = seen.get(column);
+      if (position !== undefined && wanted[position] === -1) wanted[position] = slot;
+      else others.push(slot);
+    });
+    return (row, into) => {
+      const record = kept.at(row);
+      const offset = index.offsets.at(record);
+      for (let slot = 0; slot < wantedColumns.length; slot++) into[slot] = "";
+      const plain =
+        !index.plain && (layout === "whitespace" ? readPlainWhitespaceFields(text, offset, wanted, into) : readPlainCsvFields(text, offset, wanted, into));
+      if (!plain) {
+        const fields = fieldsAt(record);
+        for (let position = 0; position < wanted.length; position++) {
+          const slot = wanted[position] as number;
+          if (slot >= 0) into[slot] = (fields[position] ?? "").trim();
+        }
+      }
+      for (const slot of others) {
+        const position = seen.get(wantedColumns[slot] as string);
+        into[slot] = position === undefined ? "" : (into[wanted[position] as number] as string);
+      }
+    };
+  };
+  return { columns, headerLine, rows, rowCount: kept.length, layout, lineOf: (row) => index.lines.at(kept.at(row)), columnReader };
 }
 
 /**

@@ -6,6 +6,7 @@ import { echoText } from "./limits.js";
 import type { IndexSeries, IndexSettings, Warning } from "./types.js";
 
 const YEAR_RANGE = { min: -9999, max: 9999 } as const;
+const MONTH_RANGE = { min: 1, max: 12 } as const;
 
 /**
  * Missing-value codes common in climate centres' index tables. They are common practice of such
@@ -18,6 +19,8 @@ export const COMMON_MISSING_CODES: readonly number[] = Object.freeze([-99.9, -99
 const SENTINEL_SIZE = 99;
 /** …far outside = at least this many times the median size |x| of the series. */
 const SENTINEL_RATIO = 20;
+/** No value smaller in size than this can be a common code or an outlier. */
+const SMALLEST_SUSPECT = Math.min(SENTINEL_SIZE, ...COMMON_MISSING_CODES.map(Math.abs));
 
 /** How an index file lays out its values, detected from its header. */
 export type IndexFileLayout =
@@ -27,16 +30,6 @@ export type IndexFileLayout =
   | "long"
   /** `year` + twelve month columns (`Jan`…`Dec` in any case, or `1`…`12`): one row per year, one index per file. */
   | "wide";
-
-interface Cell {
-  readonly line: number;
-  readonly year: number;
-  /** 1–12, or 0 in a yearly file. */
-  readonly month: number;
-  readonly text: string;
-  /** The number written, or null for an empty cell. */
-  readonly value: number | null;
-}
 
 const monthName = (month: number): string => MONTH_ABBREVIATIONS[month - 1] as string;
 
@@ -148,58 +141,92 @@ export function readIndexCsv(
   if (!usable || yearColumn === undefined) return { series: [], warnings: [] };
 
   // Read every value cell once: the twelve month columns of a wide file, or each index's column.
-  const valueColumns = wide ? (months.found as string[]) : [...new Set(indices.map((index) => index.column))];
-  const cells = new Map<string, Cell[]>(valueColumns.map((column) => [column, []]));
-  const firstLine = new Map<string, number>();
-  for (const row of table.rows) {
-    const year = readInteger(row.field(yearColumn), yearColumn, row.line, problems, YEAR_RANGE);
-    const month = layout === "long" ? readInteger(row.field(monthColumn as string), monthColumn as string, row.line, problems, { min: 1, max: 12 }) : 0;
-    const parsed = valueColumns.map((column) => {
-      const text = row.field(column);
-      if (text === "") return { text, value: null };
-      const value = readNumber(text, column, row.line, problems);
-      return value === null ? undefined : { text, value };
-    });
-    if (year === null || month === null || parsed.some((cell) => cell === undefined)) continue;
-    const key = `${year}-${month}`;
+  const valueColumns: string[] = [];
+  if (wide) valueColumns.push(...(months.found as string[]));
+  else for (const index of indices) if (!valueColumns.includes(index.column)) valueColumns.push(index.column);
+  const columnCount = valueColumns.length;
+  const long = layout === "long";
+  const firstValue = long ? 2 : 1;
+  const read = table.columnReader(long ? [yearColumn, monthColumn as string, ...valueColumns] : [yearColumn, ...valueColumns]);
+  // The rows kept, as columns: line, year, month (0 in a yearly file, 1–12 in a long one; a wide
+  // file's month is its value column), data row, and the values row by row (NaN = empty cell).
+  const rowCount = table.rowCount;
+  const cells: Cells = {
+    count: 0,
+    lines: new Int32Array(rowCount),
+    years: new Float64Array(rowCount),
+    months: new Int32Array(rowCount),
+    rows: new Int32Array(rowCount),
+    values: new Float64Array(rowCount * columnCount),
+  };
+  const texts: string[] = [];
+  const rowValues = new Float64Array(columnCount);
+  const firstLine = new Map<number, number>();
+  for (let row = 0; row < rowCount; row++) {
+    read(row, texts);
+    const line = table.lineOf(row);
+    const year = readInteger(texts[0] as string, yearColumn, line, problems, YEAR_RANGE);
+    const month = long ? readInteger(texts[1] as string, monthColumn as string, line, problems, MONTH_RANGE) : 0;
+    let unreadable = false;
+    for (let column = 0; column < columnCount; column++) {
+      const text = texts[firstValue + column] as string;
+      if (text === "") {
+        rowValues[column] = NaN;
+        continue;
+      }
+      const value = readNumber(text, valueColumns[column] as string, line, problems);
+      if (value === null) unreadable = true;
+      else rowValues[column] = value;
+    }
+    if (year === null || month === null || unreadable) continue;
+    // Unique for a year of at most 4 digits and a month 0–12 (−0 and 0 are one key, as in text).
+    const key = year * 16 + month;
     const earlier = firstLine.get(key);
     if (earlier !== undefined) {
-      const what = layout === "long" ? `year ${year} month ${month}` : `year ${year}`;
-      problems.add(row.line, `${what} appears twice (lines ${earlier} and ${row.line})`);
+      const what = long ? `year ${year} month ${month}` : `year ${year}`;
+      problems.add(line, `${what} appears twice (lines ${earlier} and ${line})`);
       continue;
     }
-    firstLine.set(key, row.line);
-    valueColumns.forEach((column, position) => {
-      const cell = parsed[position] as { text: string; value: number | null };
-      (cells.get(column) as Cell[]).push({ line: row.line, year, month: wide ? position + 1 : month, text: cell.text, value: cell.value });
-    });
+    firstLine.set(key, line);
+    const at = cells.count++;
+    cells.lines[at] = line;
+    cells.years[at] = year;
+    cells.months[at] = month;
+    cells.rows[at] = row;
+    cells.values.set(rowValues, at * columnCount);
   }
   if (problems.size > 0) return { series: [], warnings: [] };
 
+  /** The text of a kept cell, read again from its row (only for a message). */
+  const textOf = (at: number, column: number): string => {
+    read(cells.rows[at] as number, texts);
+    return texts[firstValue + column] as string;
+  };
   const reported = new Set<string>();
   const perIndex = indices.map((index) => {
-    const own = wide ? valueColumns.flatMap((column) => cells.get(column) as Cell[]) : (cells.get(index.column) as Cell[]);
+    const own = ownCells(cells, wide ? null : valueColumns.indexOf(index.column), columnCount);
     const declared = index.missing ?? [];
-    const values = own.map((cell) => (cell.value !== null && declared.includes(cell.value) ? { ...cell, value: null } : cell));
-    checkMissingCodes(index, values, layout, problems, reported);
-    return values;
+    for (let i = 0; i < own.values.length; i++) {
+      const value = own.values[i] as number;
+      if (!Number.isNaN(value) && declared.includes(value)) own.values[i] = NaN;
+    }
+    checkMissingCodes(index, own, cells, layout, problems, reported, textOf);
+    return own;
   });
   if (problems.size > 0) return { series: [], warnings: [] };
 
   const series: IndexSeries[] = [];
   const warnings: Warning[] = [];
   indices.forEach((index, position) => {
-    const values = perIndex[position] as Cell[];
+    const own = perIndex[position] as OwnCells;
     if (layout === "yearly") {
-      const sorted = [...values].sort((a, b) => a.year - b.year);
-      series.push({ name: index.name, years: sorted.map((cell) => cell.year), values: sorted.map((cell) => cell.value) });
+      const order = ascendingYears(cells);
+      series.push({ name: index.name, years: order.map((at) => cells.years[at] as number), values: order.map((at) => valueOrNull(own.values[at] as number)) });
       return;
     }
     const window = parseMonthWindow(index.months ?? "");
     if (window === null) throw new RangeError(`index ${index.name}: invalid month window ${String(index.months)}`);
-    const monthlyValues: MonthlyValue[] = values
-      .map((cell) => ({ year: cell.year, month: cell.month, value: cell.value }))
-      .sort((a, b) => a.year - b.year || a.month - b.month);
+    const monthlyValues = monthlyInOrder(own, cells, wide);
     const seasonal = seasonalValues(monthlyValues, window);
     series.push({ name: index.name, years: seasonal.years, values: seasonal.values, monthly: monthlyValues });
     if (seasonal.incomplete.length > 0) {
@@ -217,34 +244,124 @@ export function readIndexCsv(
   return { series, warnings, layout };
 }
 
+/** The rows kept from an index file, as columns (see readIndexCsv). */
+interface Cells {
+  count: number;
+  readonly lines: Int32Array;
+  readonly years: Float64Array;
+  readonly months: Int32Array;
+  /** The data row of the table each kept row came from. */
+  readonly rows: Int32Array;
+  /** Row by row, every value column; NaN = empty cell. */
+  readonly values: Float64Array;
+}
+
+/**
+ * The cells one index reads: one value column of every kept row, or for a wide file all twelve
+ * month columns, January's cells first (then February's, …). Cell i is kept row `rowOf(i)`.
+ */
+interface OwnCells {
+  /** NaN = missing (an empty cell, or a declared missing code). */
+  readonly values: Float64Array;
+  /** The value column of cell i (a wide file's month is this + 1). */
+  readonly columnOf: (i: number) => number;
+  readonly rowOf: (i: number) => number;
+}
+
+function ownCells(cells: Cells, column: number | null, columnCount: number): OwnCells {
+  const count = cells.count;
+  if (column !== null) {
+    const values = new Float64Array(count);
+    for (let at = 0; at < count; at++) values[at] = cells.values[at * columnCount + column] as number;
+    return { values, columnOf: () => column, rowOf: (i) => i };
+  }
+  const values = new Float64Array(count * columnCount);
+  for (let month = 0; month < columnCount; month++) {
+    for (let at = 0; at < count; at++) values[month * count + at] = cells.values[at * columnCount + month] as number;
+  }
+  return { values, columnOf: (i) => Math.floor(i / count), rowOf: (i) => i % count };
+}
+
+const valueOrNull = (value: number): number | null => (Number.isNaN(value) ? null : value);
+
+/** The kept rows in ascending year (years are unique in a yearly file): file order when it already is. */
+function ascendingYears(cells: Cells): number[] {
+  const order = Array.from({ length: cells.count }, (_, at) => at);
+  for (let at = 1; at < cells.count; at++) {
+    if ((cells.years[at] as number) < (cells.years[at - 1] as number)) return order.sort((a, b) => (cells.years[a] as number) - (cells.years[b] as number));
+  }
+  return order;
+}
+
+/** An index's months in ascending year then month, each (year, month) once. */
+function monthlyInOrder(own: OwnCells, cells: Cells, wide: boolean): MonthlyValue[] {
+  const count = cells.count;
+  const monthly: MonthlyValue[] = new Array<MonthlyValue>(wide ? count * 12 : count);
+  let sorted = true;
+  for (let at = 0; at < count; at++) {
+    const year = cells.years[at] as number;
+    if (at > 0) {
+      const previous = cells.years[at - 1] as number;
+      if (year < previous || (year === previous && (wide || (cells.months[at] as number) <= (cells.months[at - 1] as number)))) sorted = false;
+    }
+    if (wide) {
+      for (let month = 0; month < 12; month++) {
+        const value = own.values[month * count + at] as number;
+        monthly[at * 12 + month] = { year, month: month + 1, value: Number.isNaN(value) ? null : value };
+      }
+    } else {
+      const value = own.values[at] as number;
+      monthly[at] = { year, month: cells.months[at] as number, value: Number.isNaN(value) ? null : value };
+    }
+  }
+  return sorted ? monthly : monthly.sort((a, b) => a.year - b.year || a.month - b.month);
+}
+
 /** Median of |x| over the non-missing values (0 for none). */
-function medianSize(cells: readonly Cell[]): number {
-  const sizes = new Float64Array(cells.length);
+function medianSize(values: Float64Array): number {
+  const sizes = new Float64Array(values.length);
   let count = 0;
-  for (const cell of cells) if (cell.value !== null) sizes[count++] = Math.abs(cell.value);
+  for (let i = 0; i < values.length; i++) {
+    const value = values[i] as number;
+    if (!Number.isNaN(value)) sizes[count++] = Math.abs(value);
+  }
   if (count === 0) return 0;
   const sorted = sizes.subarray(0, count).sort();
   return count % 2 === 1 ? (sorted[(count - 1) / 2] as number) : ((sorted[count / 2 - 1] as number) + (sorted[count / 2] as number)) / 2;
 }
 
 /** Adds a problem for every undeclared value that looks like a missing-value code (see readIndexCsv). */
-function checkMissingCodes(index: IndexSettings, cells: readonly Cell[], layout: IndexFileLayout, problems: ProblemList, reported: Set<string>): void {
-  const median = medianSize(cells);
-  for (const cell of cells) {
-    if (cell.value === null) continue;
-    const size = Math.abs(cell.value);
-    const common = COMMON_MISSING_CODES.includes(cell.value);
+function checkMissingCodes(
+  index: IndexSettings,
+  own: OwnCells,
+  cells: Cells,
+  layout: IndexFileLayout,
+  problems: ProblemList,
+  reported: Set<string>,
+  textOf: (at: number, column: number) => string,
+): void {
+  const median = medianSize(own.values);
+  for (let i = 0; i < own.values.length; i++) {
+    const value = own.values[i] as number;
+    const size = Math.abs(value);
+    if (!(size >= SMALLEST_SUSPECT)) continue; // also skips NaN, a missing value
+    const common = COMMON_MISSING_CODES.includes(value);
     const outlier = size >= SENTINEL_SIZE && size >= SENTINEL_RATIO * median;
     if (!common && !outlier) continue;
+    const at = own.rowOf(i);
+    const column = own.columnOf(i);
+    const line = cells.lines[at] as number;
+    const year = cells.years[at] as number;
+    const month = layout === "wide" ? column + 1 : (cells.months[at] as number);
     // The cells of a wide file are shared by the indices that read it: report each cell once.
-    const key = `${layout === "wide" ? "" : index.column}\u0000${cell.line}-${cell.month}`;
+    const key = `${layout === "wide" ? "" : index.column}\u0000${line}-${month}`;
     if (reported.has(key)) continue;
     reported.add(key);
-    const when = layout === "yearly" ? `${cell.year}` : `${monthName(cell.month)} ${cell.year}`;
+    const when = layout === "yearly" ? `${year}` : `${monthName(month)} ${year}`;
     const why = common ? "a common missing-value code" : `far outside the rest of the series, whose median size is ${formatSize(median)}`;
     problems.add(
-      cell.line,
-      `${index.name} ${when}: the value ${echoText(cell.text)} looks like a missing-value code (${why}); if it marks a missing value, declare it in region.json as "indices": { "${index.name}": { "missing": [${formatCode(cell.value)}] } }, or leave the cell empty`,
+      line,
+      `${index.name} ${when}: the value ${echoText(textOf(at, column))} looks like a missing-value code (${why}); if it marks a missing value, declare it in region.json as "indices": { "${index.name}": { "missing": [${formatCode(value)}] } }, or leave the cell empty`,
     );
   }
 }
