@@ -126,7 +126,8 @@ export function seasonYearOf(window: MonthWindow, year: number, month: number): 
  * // => { years: [1998], values: [2.5], incomplete: [] }
  */
 export function seasonalValues(monthly: readonly MonthlyValue[], window: MonthWindow): SeasonalSeries {
-  const byMonth = new Map<string, number | null>();
+  // Keyed by month number (an integer key: no text built per month).
+  const byMonth = new Map<number, number | null>();
   let firstSeason = Infinity;
   let lastSeason = -Infinity;
   for (const row of monthly) {
@@ -134,8 +135,8 @@ export function seasonalValues(monthly: readonly MonthlyValue[], window: MonthWi
       throw new RangeError(`month must be 1-12 (found ${row.month})`);
     }
     if (!Number.isInteger(row.year)) throw new RangeError(`year must be an integer (found ${row.year})`);
-    const key = `${row.year}-${row.month}`;
-    if (byMonth.has(key)) throw new RangeError(`month ${key} appears twice`);
+    const key = monthNumber(row.year, row.month);
+    if (byMonth.has(key)) throw new RangeError(`month ${row.year}-${row.month} appears twice`);
     byMonth.set(key, row.value);
     const season = seasonYearOf(window, row.year, row.month);
     // Seasons are bounded by months that hold a value: the trailing missing-value codes of a wide
@@ -151,7 +152,7 @@ export function seasonalValues(monthly: readonly MonthlyValue[], window: MonthWi
   for (let season = firstSeason; season <= lastSeason; season++) {
     const months = seasonMonths(window, season);
     const missing = months.filter((m) => {
-      const value = byMonth.get(`${m.year}-${m.month}`);
+      const value = byMonth.get(monthNumber(m.year, m.month));
       return value === undefined || value === null;
     });
     years.push(season);
@@ -159,7 +160,7 @@ export function seasonalValues(monthly: readonly MonthlyValue[], window: MonthWi
       values.push(null);
       incomplete.push({ year: season, missing });
     } else {
-      const sum = months.reduce((total, m) => total + (byMonth.get(`${m.year}-${m.month}`) as number), 0);
+      const sum = months.reduce((total, m) => total + (byMonth.get(monthNumber(m.year, m.month)) as number), 0);
       values.push(sum / months.length);
     }
   }
