@@ -1,6 +1,6 @@
 import { isMainThread, Worker } from "node:worker_threads";
 import type { Calibration } from "../calibrate/types.js";
-import { runHindcast } from "../hindcast/runHindcast.js";
+import { runCurveRuleHindcast, runHindcast, withCurveRule } from "../hindcast/runHindcast.js";
 import type { Skill } from "../hindcast/types.js";
 import { attachHindcast, buildOutlookWithoutHindcast, outlookHindcastInput, type OutlookRequest } from "../outlook/buildOutlook.js";
 import type { Outlook } from "../outlook/types.js";
@@ -11,7 +11,7 @@ const WORKER_URL = new URL("./hindcastWorker.js", import.meta.url);
 /** Running from the compiled JavaScript (not from the TypeScript sources under a test runner). */
 const COMPILED = import.meta.url.endsWith(".js");
 
-/** The hindcast computed in a worker thread; null when no worker could be used (the caller computes it here). */
+/** A hindcast computed in a worker thread; null when no worker could be used (the caller computes it here). */
 function hindcastInWorker(input: ReturnType<typeof outlookHindcastInput>): Promise<Skill | null> {
   return new Promise((resolve, reject) => {
     let worker: Worker;
@@ -40,17 +40,19 @@ function hindcastInWorker(input: ReturnType<typeof outlookHindcastInput>): Promi
 }
 
 /**
- * The same outlook as buildOutlook, computed on two cores: the hindcast (its permutation tests and bootstrap
- * intervals, most of the work) runs in a worker thread while this thread builds the rest (the selection-aware
- * interval is the larger part of it), and the two are joined by attachHindcast. Every part is seeded on its own,
- * so the result is byte-for-byte the one-thread result. Used from the main thread of the compiled program; in a
- * worker thread (a batch already uses every core) or from the sources under a test runner, it computes both
- * parts here.
+ * The same outlook as buildOutlook, computed on two cores: the phase rule's hindcast (its permutation test and
+ * bootstrap intervals, the largest part of the work) runs in a worker thread while this thread builds the rest
+ * of the outlook (mostly the selection-aware interval) and the curve rule's hindcast; attachHindcast joins them.
+ * Every part draws from its own seeded stream, so the result is byte-for-byte the one-thread result. Used from
+ * the main thread of the compiled program; in a worker thread (a batch already uses every core) or from the
+ * sources under a test runner, every part is computed here.
  */
 export async function buildOutlookBeside(workspace: Workspace, calibration: Calibration, request: OutlookRequest): Promise<Outlook> {
   const input = outlookHindcastInput(workspace, calibration, request);
-  const pending = COMPILED && isMainThread ? hindcastInWorker(input) : Promise.resolve(null);
+  const phaseInput = { ...input, curveRule: false };
+  const pending = COMPILED && isMainThread ? hindcastInWorker(phaseInput) : Promise.resolve(null);
   const rest = buildOutlookWithoutHindcast(workspace, calibration, request);
-  const skill = (await pending) ?? runHindcast(input);
-  return attachHindcast(rest, skill);
+  const curveRule = input.curveRule === false ? null : runCurveRuleHindcast(input);
+  const phaseRule = (await pending) ?? runHindcast(phaseInput);
+  return attachHindcast(rest, curveRule === null ? phaseRule : withCurveRule(phaseRule, curveRule));
 }

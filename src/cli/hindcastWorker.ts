@@ -1,5 +1,5 @@
 /**
- * Worker thread of {@link buildOutlookBeside}: runs the outlook's hindcast (runHindcast) on the input it is
+ * Worker thread of buildOutlookBeside: runs a hindcast (runHindcast; there, the phase rule's) on the input it is
  * given and posts the result (or the error's message) back. It loads only the hindcast's modules.
  */
 import { parentPort, workerData } from "node:worker_threads";

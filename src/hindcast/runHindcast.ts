@@ -15,7 +15,7 @@ import { curveScratch } from "./fastResponseCurve.js";
 import { ONE_STEP_RULE, oneStepCurveForecasts, oneStepScratch } from "./oneStepCurveForecasts.js";
 import { fixedEvent, type FixedEvent } from "./fixedEvent.js";
 import { hindcastDesign, type HindcastDesign } from "./hindcastDesign.js";
-import { BASIS, phaseRuleForecasts, phaseRuleScratch, type PhaseRuleForecasts, type PhaseRuleSettings } from "./phaseRuleForecasts.js";
+import { BASIS, phaseRuleForecasts, phaseRuleScratch, type PhaseRuleForecasts, type PhaseRuleScratch, type PhaseRuleSettings } from "./phaseRuleForecasts.js";
 import { skillIntervals, type ScoredYear } from "./skillIntervals.js";
 import { skillVerdict, SKILL_RULE } from "./skillVerdict.js";
 import type { HindcastYear, Skill } from "./types.js";
@@ -115,18 +115,62 @@ function streamOf(seed: number, stream: number): RandomSource {
  * that counting.
  */
 export function runHindcast(input: HindcastInput): Skill {
-  const seed = input.seed ?? HINDCAST_DEFAULTS.seed;
-  const permutations = input.permutations ?? HINDCAST_DEFAULTS.permutations;
-  const blockYears = input.blockYears ?? HINDCAST_DEFAULTS.blockYears;
-  const resamples = input.bootstrapResamples ?? HINDCAST_DEFAULTS.bootstrapResamples;
+  const common = hindcastCommon(input);
+  const result = phaseRuleHindcast(input, common);
+  if (input.curveRule === false) return result;
+  return withCurveRule(result, curveRuleHindcast(input, common));
+}
+
+/**
+ * The curve rule's part of {@link runHindcast} alone (what runHindcast gives as `curveRule`), so it can be
+ * computed apart from the phase rule's (another thread) and joined by {@link withCurveRule}: every part draws
+ * from its own seeded stream, so the joined result is the same as runHindcast's.
+ */
+export function runCurveRuleHindcast(input: HindcastInput): Skill {
+  return curveRuleHindcast(input, hindcastCommon(input));
+}
+
+/** The phase rule's hindcast (runHindcast with `curveRule: false`) joined with the curve rule's ({@link runCurveRuleHindcast}). */
+export function withCurveRule(phaseRule: Skill, curveRule: Skill): Skill {
+  return { ...phaseRule, curveRule };
+}
+
+/** What both rules' hindcasts share: the settings, the design, the fixed event and the phase rule's forecasts. */
+interface HindcastCommon {
+  readonly seed: number;
+  readonly permutations: number;
+  readonly blockYears: number;
+  readonly resamples: number;
+  readonly settings: PhaseRuleSettings;
+  readonly design: HindcastDesign;
+  readonly event: FixedEvent;
+  readonly scratch: PhaseRuleScratch;
+  readonly phase: PhaseRuleForecasts;
+}
+
+function hindcastCommon(input: HindcastInput): HindcastCommon {
   const settings: PhaseRuleSettings = { jointMinYears: input.jointMinYears, jointMaxQ: input.jointMaxQ };
   const design = hindcastDesign(input);
   const event = fixedEvent(design.years, input.activity, input.top, input.measure);
   const scratch = phaseRuleScratch(design);
   const phase = copyForecasts(phaseRuleForecasts(design, event.fire, event.category, settings, scratch));
+  return {
+    seed: input.seed ?? HINDCAST_DEFAULTS.seed,
+    permutations: input.permutations ?? HINDCAST_DEFAULTS.permutations,
+    blockYears: input.blockYears ?? HINDCAST_DEFAULTS.blockYears,
+    resamples: input.bootstrapResamples ?? HINDCAST_DEFAULTS.bootstrapResamples,
+    settings,
+    design,
+    event,
+    scratch,
+    phase,
+  };
+}
+
+function phaseRuleHindcast(input: HindcastInput, common: HindcastCommon): Skill {
+  const { seed, permutations, blockYears, resamples, settings, design, event, scratch, phase } = common;
   const forecasts = hindcastYears(design, event, phase, phase.probability, null);
   const skill = scoreHindcast(forecasts, input.exclusion, event, true);
-
   const phaseTest =
     skill.brierSkillScore === null
       ? { pValue: null, reason: "the Brier skill score could not be computed" }
@@ -137,9 +181,11 @@ export function runHindcast(input: HindcastInput): Skill {
           : permutationTest(design, event, permutations, blockYears, streamOf(seed, STREAM.permutation), (fire, category) => {
               return phaseRuleForecasts(design, fire, category, settings, scratch).probability;
             });
-  const result = finishSkill(skill, forecasts, event, phaseTest, permutations, blockYears, resamples, seed, [STREAM.bootstrap, STREAM.corp], true);
-  if (input.curveRule === false) return result;
+  return finishSkill(skill, forecasts, event, phaseTest, permutations, blockYears, resamples, seed, [STREAM.bootstrap, STREAM.corp], true);
+}
 
+function curveRuleHindcast(input: HindcastInput, common: HindcastCommon): Skill {
+  const { seed, permutations, blockYears, resamples, settings, design, event, scratch, phase } = common;
   const curveBuffers = design.names.map(() => curveScratch(design.years.length));
   const oneStep = oneStepScratch(design);
   const curve = curveRuleForecasts(design, event.fire, phase, curveBuffers);
@@ -169,7 +215,7 @@ export function runHindcast(input: HindcastInput): Skill {
             });
   const curveResult = finishSkill(curveSkill, curveYears, event, curveTest, curveCount, blockYears, resamples, seed, [STREAM.curveBootstrap, STREAM.curveCorp], false);
   const curveStatistic = curveResult.skillPValue === null || curveResult.skillPValue === undefined ? {} : { permutationStatistic: ONE_STEP_RULE };
-  return { ...result, curveRule: { ...curveResult, ...curveStatistic } };
+  return { ...curveResult, ...curveStatistic };
 }
 
 function copyForecasts(forecasts: PhaseRuleForecasts): PhaseRuleForecasts {

@@ -2,7 +2,7 @@ import fc from "fast-check";
 import jStat from "jstat";
 import { describe, expect, it } from "vitest";
 import { activityByYear, valuesByYear } from "../../src/calibrate/activityByYear.js";
-import { runHindcast, type HindcastInput } from "../../src/hindcast/runHindcast.js";
+import { runHindcast, type HindcastInput, runCurveRuleHindcast, withCurveRule } from "../../src/hindcast/runHindcast.js";
 import { compositeFireRecord } from "../../src/record/composite.js";
 import { blockPermutationIndices } from "../../src/stats/blockPermutation.js";
 import { createRandom } from "../../src/stats/createRandom.js";
@@ -261,5 +261,15 @@ describe("runHindcast permutation p-value", () => {
     // Binomial(50, 0.05) upper tail from jstat: the bound is chosen so a correct test fails this check < 4% of the time.
     expect(1 - jStat.binomial.cdf(6, 50, 0.05)).toBeLessThan(0.04);
     expect(alarms).toBeLessThanOrEqual(6);
+  });
+});
+
+describe("runCurveRuleHindcast and withCurveRule (the two rules computed apart)", () => {
+  it("joined, they equal runHindcast exactly (every part draws from its own seeded stream)", () => {
+    const input = { ...hindcastInput({ effect: 1.2, seed: 7, first: 1701, last: 1960 }), permutations: 49, bootstrapResamples: 49 };
+    const whole = runHindcast(input);
+    const apart = withCurveRule(runHindcast({ ...input, curveRule: false }), runCurveRuleHindcast(input));
+    expect(JSON.stringify(apart)).toBe(JSON.stringify(whole));
+    expect(whole.curveRule?.skillPValue).not.toBeNull();
   });
 });
