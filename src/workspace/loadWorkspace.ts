@@ -1,6 +1,5 @@
 import { createHash } from "node:crypto";
-import { constants } from "node:fs";
-import { open, stat } from "node:fs/promises";
+import { closeSync, constants, fstatSync, openSync, readSync, statSync } from "node:fs";
 import path from "node:path";
 import { didYouMean } from "./didYouMean.js";
 import { readActivityCsv, readEventsCsv, readModernCsv, readSitesCsv, type Located } from "./fireRecordCsv.js";
@@ -48,12 +47,13 @@ function readError(error: unknown, problems: ProblemList): null {
  * checked before it is opened (a folder, device, named pipe or socket is refused, so `/dev/zero`
  * or a FIFO never hangs the reader), opened without blocking, checked again on the open handle,
  * and read with a bound of `limit + 1` bytes (a file that grows past the limit while being read is
- * refused too).
+ * refused too). The calls are synchronous: a region's few files are read one after the other
+ * anyway, and each asynchronous call would wait for a round trip through libuv's thread pool.
  */
-async function readInputFile(absolute: string, problems: ProblemList, limit: number): Promise<LoadedFile | null> {
+function readInputFile(absolute: string, problems: ProblemList, limit: number): LoadedFile | null {
   let info;
   try {
-    info = await stat(absolute);
+    info = statSync(absolute);
   } catch (error) {
     return readError(error, problems);
   }
@@ -73,19 +73,19 @@ async function readInputFile(absolute: string, problems: ProblemList, limit: num
     return false;
   };
   if (refuse(info)) return null;
-  let handle;
+  let descriptor;
   try {
-    handle = await open(absolute, constants.O_RDONLY | constants.O_NONBLOCK);
+    descriptor = openSync(absolute, constants.O_RDONLY | constants.O_NONBLOCK);
   } catch (error) {
     return readError(error, problems);
   }
   try {
-    const opened = await handle.stat();
+    const opened = fstatSync(descriptor);
     if (refuse(opened)) return null;
     const buffer = Buffer.alloc(Math.min(opened.size, limit) + 1);
     let filled = 0;
     for (;;) {
-      const { bytesRead } = await handle.read(buffer, filled, buffer.length - filled, filled);
+      const bytesRead = readSync(descriptor, buffer, filled, buffer.length - filled, filled);
       if (bytesRead === 0) break;
       filled += bytesRead;
       if (filled === buffer.length) {
@@ -101,7 +101,7 @@ async function readInputFile(absolute: string, problems: ProblemList, limit: num
   } catch (error) {
     return readError(error, problems);
   } finally {
-    await handle.close();
+    closeSync(descriptor);
   }
 }
 
@@ -135,7 +135,7 @@ export async function loadWorkspace(given: string): Promise<Workspace> {
   const absoluteRoot = path.resolve(root);
   const shown = (relative: string): string => path.join(root, relative);
   const regionProblems = new ProblemList(shown(REGION_FILE));
-  const regionFile = await readInputFile(path.join(absoluteRoot, REGION_FILE), regionProblems, MAX_REGION_JSON_BYTES);
+  const regionFile = readInputFile(path.join(absoluteRoot, REGION_FILE), regionProblems, MAX_REGION_JSON_BYTES);
   if (regionFile === null) {
     throw new InputError(
       regionProblems.toArray().map((problem) =>
@@ -161,9 +161,9 @@ export async function loadWorkspace(given: string): Promise<Workspace> {
     }
     return list;
   };
-  const load = async (role: string, relative: string): Promise<Buffer | null> => {
+  const load = (role: string, relative: string): Buffer | null => {
     const key = path.normalize(relative);
-    if (!cache.has(key)) cache.set(key, await readInputFile(path.resolve(absoluteRoot, relative), listFor(relative), MAX_DATA_FILE_BYTES));
+    if (!cache.has(key)) cache.set(key, readInputFile(path.resolve(absoluteRoot, relative), listFor(relative), MAX_DATA_FILE_BYTES));
     const loaded = cache.get(key) ?? null;
     if (loaded !== null) files.push({ role, path: relative, sha256: loaded.sha256, bytes: loaded.bytes.length });
     return loaded?.bytes ?? null;
@@ -173,8 +173,8 @@ export async function loadWorkspace(given: string): Promise<Workspace> {
   if (names.fireRecord.kind === "sites") {
     const sitesName = names.fireRecord.sites;
     const eventsName = names.fireRecord.events;
-    const sitesBytes = await load("sites", sitesName);
-    const eventsBytes = await load("events", eventsName);
+    const sitesBytes = load("sites", sitesName);
+    const eventsBytes = load("events", eventsName);
     const siteProblems = listFor(sitesName);
     const eventProblems = listFor(eventsName);
     const sites = sitesBytes === null ? [] : readSitesCsv(sitesBytes, siteProblems);
@@ -184,14 +184,14 @@ export async function loadWorkspace(given: string): Promise<Workspace> {
     fireRecord = { kind: "sites", sites: sites.map((s) => s.value), events: read.events.map((e) => e.value) };
   } else {
     const activityName = names.fireRecord.activity;
-    const bytes = await load("activity", activityName);
+    const bytes = load("activity", activityName);
     const rows = bytes === null ? [] : readActivityCsv(bytes, listFor(activityName));
     fireRecord = { kind: "activity", rows: rows.map((r) => r.value).sort((a, b) => a.year - b.year) };
   }
 
   let modern = null;
   if (names.modern !== null) {
-    const bytes = await load("modern", names.modern);
+    const bytes = load("modern", names.modern);
     modern = bytes === null ? [] : readModernCsv(bytes, listFor(names.modern)).map((r) => r.value).sort((a, b) => a.year - b.year);
   }
 
@@ -201,7 +201,7 @@ export async function loadWorkspace(given: string): Promise<Workspace> {
     byFile.set(key, [...(byFile.get(key) ?? []), index]);
   }
   const seriesByName = new Map<string, IndexSeries>();
-  for (const index of settings.indices) await load(`index:${index.name}`, index.file);
+  for (const index of settings.indices) load(`index:${index.name}`, index.file);
   for (const group of byFile.values()) {
     const first = group[0] as IndexSettings;
     const bytes = cache.get(path.normalize(first.file)) ?? null;
