@@ -33,6 +33,64 @@ export interface CsvTable {
    * an object per row.
    */
   columnReader(columns: readonly string[]): (row: number, into: string[]) => void;
+  /**
+   * Fast path for a reader of numbers: the values of `columns` in every data row, row by row
+   * (`values[row × columns.length + j]`, NaN for an empty cell), when every such cell is written
+   * plainly; otherwise null, and the caller reads the rows with {@link columnReader}. Plainly
+   * written: an integer column's cell is `-?` and 1–15 digits without a leading zero; a decimal
+   * column's cell is the same, optionally followed by `.` and 1–15 digits, or empty; no spaces.
+   * For such a cell `readInteger` and `readNumber` (fields.ts) give exactly this value and no
+   * problem. Only a CSV text without double quotes whose data rows follow one another, one per
+   * line, is read this way.
+   */
+  plainNumbers(columns: readonly PlainColumn[]): Float64Array | null;
+}
+
+/** A column for {@link CsvTable.plainNumbers}. */
+export interface PlainColumn {
+  readonly name: string;
+  readonly integer: boolean;
+}
+
+const PLAIN_INTEGER_CELL = "-?(?:0|[1-9]\\d{0,14})";
+const PLAIN_DECIMAL_CELL = `(?:${PLAIN_INTEGER_CELL}(?:\\.\\d{1,15})?)?`;
+const ANY_CELL = "[^,\\r\\n]*";
+
+/**
+ * See {@link CsvTable.plainNumbers}: `lines` is the text of the data rows (one per line, CRLF or
+ * LF), `header` the column names. Each row is matched by one regular expression (in sticky,
+ * global mode, so the rows must follow one another) and replaced by its wanted cells as JSON
+ * numbers (an empty cell by 1e999, read as Infinity, which no plain cell can be); `JSON.parse`
+ * then reads them all. The built-in code does the work that a loop over every character and cell
+ * would do far more slowly while the reader is not yet compiled. JSON reads a number as `Number`
+ * does (the nearest double), so the values are those of the general path.
+ */
+function plainNumbersOf(lines: string, rowCount: number, header: readonly string[], wanted: readonly PlainColumn[]): Float64Array | null {
+  const slotOf = new Map<string, number>();
+  wanted.forEach((column, slot) => slotOf.set(column.name, slot));
+  // Each wanted column once, in the header, and at most 99 of them ($1 … $99 in the replacement).
+  if (slotOf.size !== wanted.length || wanted.length > 99 || wanted.some((column) => !header.includes(column.name))) return null;
+  const groupOfSlot = new Array<number>(wanted.length);
+  let groups = 0;
+  const cells = header.map((name) => {
+    const slot = slotOf.get(name);
+    if (slot === undefined) return ANY_CELL;
+    groupOfSlot[slot] = ++groups;
+    return `(${(wanted[slot] as PlainColumn).integer ? PLAIN_INTEGER_CELL : PLAIN_DECIMAL_CELL})`;
+  });
+  const row = new RegExp(`${cells.join(",")}\\r?\\n`, "gy");
+  const replaced = (lines.endsWith("\n") ? lines : `${lines}\n`).replace(row, groupOfSlot.map((group) => `$${group},`).join(""));
+  // A row that is not plain stops the replacement and is left as it was, with its line feed.
+  if (replaced.includes("\n")) return null;
+  // Every cell now ends with a comma; with one more in front, an empty cell is a comma followed by a comma.
+  const parsed = JSON.parse(`[${`,${replaced}`.replace(/,(?=,)/g, ",1e999").slice(1, -1)}]`) as number[];
+  if (parsed.length !== rowCount * wanted.length) return null;
+  const values = new Float64Array(parsed.length);
+  for (let i = 0; i < parsed.length; i++) {
+    const value = parsed[i] as number;
+    values[i] = value === Infinity ? NaN : value;
+  }
+  return values;
 }
 
 /** Options of {@link readCsvTable}. */
@@ -568,7 +626,17 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
       }
     };
   };
-  return { columns, headerLine, rows, rowCount: kept.length, layout, lineOf: (row) => index.lines.at(kept.at(row)), columnReader };
+  const plainNumbers = (wanted: readonly PlainColumn[]): Float64Array | null => {
+    if (!index.plain || kept.length === 0) return null;
+    // The data rows must be the records after the header, on consecutive lines (no blank line,
+    // comment or row of the wrong length among them).
+    const first = kept.at(0);
+    const last = kept.at(kept.length - 1);
+    if (first !== headerRecord + 1 || last - first + 1 !== kept.length || index.lines.at(last) - index.lines.at(first) + 1 !== kept.length) return null;
+    const feed = text.indexOf("\n", index.offsets.at(last));
+    return plainNumbersOf(text.slice(index.offsets.at(first), feed < 0 ? text.length : feed + 1), kept.length, columns, wanted);
+  };
+  return { columns, headerLine, rows, rowCount: kept.length, layout, lineOf: (row) => index.lines.at(kept.at(row)), columnReader, plainNumbers };
 }
 
 /**

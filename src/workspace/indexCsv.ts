@@ -160,41 +160,12 @@ export function readIndexCsv(
     values: new Float64Array(rowCount * columnCount),
   };
   const texts: string[] = [];
-  const rowValues = new Float64Array(columnCount);
-  const firstLine = new Map<number, number>();
-  for (let row = 0; row < rowCount; row++) {
-    read(row, texts);
-    const line = table.lineOf(row);
-    const year = readInteger(texts[0] as string, yearColumn, line, problems, YEAR_RANGE);
-    const month = long ? readInteger(texts[1] as string, monthColumn as string, line, problems, MONTH_RANGE) : 0;
-    let unreadable = false;
-    for (let column = 0; column < columnCount; column++) {
-      const text = texts[firstValue + column] as string;
-      if (text === "") {
-        rowValues[column] = NaN;
-        continue;
-      }
-      const value = readNumber(text, valueColumns[column] as string, line, problems);
-      if (value === null) unreadable = true;
-      else rowValues[column] = value;
-    }
-    if (year === null || month === null || unreadable) continue;
-    // Unique for a year of at most 4 digits and a month 0–12 (−0 and 0 are one key, as in text).
-    const key = year * 16 + month;
-    const earlier = firstLine.get(key);
-    if (earlier !== undefined) {
-      const what = long ? `year ${year} month ${month}` : `year ${year}`;
-      problems.add(line, `${what} appears twice (lines ${earlier} and ${line})`);
-      continue;
-    }
-    firstLine.set(key, line);
-    const at = cells.count++;
-    cells.lines[at] = line;
-    cells.years[at] = year;
-    cells.months[at] = month;
-    cells.rows[at] = row;
-    cells.values.set(rowValues, at * columnCount);
-  }
+  const plain = table.plainNumbers([
+    { name: yearColumn, integer: true },
+    ...(long ? [{ name: monthColumn as string, integer: true }] : []),
+    ...valueColumns.map((name) => ({ name, integer: false })),
+  ]);
+  if (plain === null || !keepPlainRows(plain, table, cells, long, columnCount)) readRows(table, read, texts, cells, { yearColumn, monthColumn, valueColumns, long }, problems);
   if (problems.size > 0) return { series: [], warnings: [] };
 
   /** The text of a kept cell, read again from its row (only for a message). */
@@ -242,6 +213,92 @@ export function readIndexCsv(
     }
   });
   return { series, warnings, layout };
+}
+
+/** The columns an index file is read by. */
+interface ReadColumns {
+  readonly yearColumn: string;
+  readonly monthColumn: string | undefined;
+  readonly valueColumns: readonly string[];
+  readonly long: boolean;
+}
+
+/**
+ * The general path: reads every row's year (and month) and values as text, adding a problem for
+ * each that is not a number, out of range, or a repeated year (and month), and keeps the rows
+ * without problems in `cells`.
+ */
+function readRows(
+  table: CsvTable,
+  read: (row: number, into: string[]) => void,
+  texts: string[],
+  cells: Cells,
+  { yearColumn, monthColumn, valueColumns, long }: ReadColumns,
+  problems: ProblemList,
+): void {
+  const columnCount = valueColumns.length;
+  const firstValue = long ? 2 : 1;
+  const rowValues = new Float64Array(columnCount);
+  const firstLine = new Map<number, number>();
+  cells.count = 0;
+  for (let row = 0; row < table.rowCount; row++) {
+    read(row, texts);
+    const line = table.lineOf(row);
+    const year = readInteger(texts[0] as string, yearColumn, line, problems, YEAR_RANGE);
+    const month = long ? readInteger(texts[1] as string, monthColumn as string, line, problems, MONTH_RANGE) : 0;
+    let unreadable = false;
+    for (let column = 0; column < columnCount; column++) {
+      const text = texts[firstValue + column] as string;
+      if (text === "") {
+        rowValues[column] = NaN;
+        continue;
+      }
+      const value = readNumber(text, valueColumns[column] as string, line, problems);
+      if (value === null) unreadable = true;
+      else rowValues[column] = value;
+    }
+    if (year === null || month === null || unreadable) continue;
+    // Unique for a year of at most 4 digits and a month 0–12 (−0 and 0 are one key, as in text).
+    const key = year * 16 + month;
+    const earlier = firstLine.get(key);
+    if (earlier !== undefined) {
+      const what = long ? `year ${year} month ${month}` : `year ${year}`;
+      problems.add(line, `${what} appears twice (lines ${earlier} and ${line})`);
+      continue;
+    }
+    firstLine.set(key, line);
+    const at = cells.count++;
+    cells.lines[at] = line;
+    cells.years[at] = year;
+    cells.months[at] = month;
+    cells.rows[at] = row;
+    cells.values.set(rowValues, at * columnCount);
+  }
+}
+
+/**
+ * The fast path, for the values from {@link CsvTable.plainNumbers}: keeps every row in `cells`
+ * when no year (or month) is out of range and none repeats, and returns true; returns false at
+ * the first row that would be a problem (the caller then takes the general path, which reports it).
+ */
+function keepPlainRows(values: Float64Array, table: CsvTable, cells: Cells, long: boolean, columnCount: number): boolean {
+  const width = columnCount + (long ? 2 : 1);
+  const seen = new Set<number>();
+  for (let row = 0; row < table.rowCount; row++) {
+    const year = values[row * width] as number;
+    const month = long ? (values[row * width + 1] as number) : 0;
+    if (year < YEAR_RANGE.min || year > YEAR_RANGE.max || (long && (month < MONTH_RANGE.min || month > MONTH_RANGE.max))) return false;
+    const key = year * 16 + month;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    cells.lines[row] = table.lineOf(row);
+    cells.years[row] = year;
+    cells.months[row] = month;
+    cells.rows[row] = row;
+    for (let column = 0; column < columnCount; column++) cells.values[row * columnCount + column] = values[row * width + width - columnCount + column] as number;
+  }
+  cells.count = table.rowCount;
+  return true;
 }
 
 /** The rows kept from an index file, as columns (see readIndexCsv). */
