@@ -1,5 +1,3 @@
-import { isValid } from "date-fns/isValid";
-import { parseISO } from "date-fns/parseISO";
 import { parseMonthWindow } from "../climate/seasonalValues.js";
 import { DEFAULT_FIRE_YEARS, DEFAULT_METHODS, DEFAULT_SEED, DEFAULT_TERCILE_LABELS } from "./defaults.js";
 import { didYouMean } from "./didYouMean.js";
@@ -95,8 +93,27 @@ const indexSchema = v.object(
   },
 );
 
-/** An issue date: YYYY-MM-DD and a real calendar day. */
-const isIssueDate = (date: string): boolean => /^\d{4}-\d{2}-\d{2}$/.test(date) && isValid(parseISO(date));
+/** Days in each month; February of a leap year has 29. */
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/**
+ * An issue date: YYYY-MM-DD naming a real day of the proleptic Gregorian calendar (a leap year is
+ * divisible by 4, except a century year not divisible by 400; year 0000 is a leap year).
+ *
+ * @example
+ * isIssueDate("2024-02-29"); // => true
+ * isIssueDate("2027-02-30"); // => false
+ */
+export function isIssueDate(date: string): boolean {
+  const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
+  if (match === null) return false;
+  const year = Number(match[1]);
+  const month = Number(match[2]);
+  const day = Number(match[3]);
+  if (month < 1 || month > 12 || day < 1) return false;
+  const leap = year % 400 === 0 || (year % 4 === 0 && year % 100 !== 0);
+  return day <= (month === 2 && leap ? 29 : (DAYS_IN_MONTH[month - 1] as number));
+}
 
 const outlookSchema = v.object({
   season: v.optional(year),

@@ -141,3 +141,23 @@ describe("settingsSchema never throws (fast-check)", () => {
     );
   });
 });
+
+describe("isIssueDate(date)", () => {
+  it("accepts exactly the YYYY-MM-DD days that date-fns parseISO reads as valid", async () => {
+    const { isValid } = await import("date-fns/isValid");
+    const { parseISO } = await import("date-fns/parseISO");
+    const { isIssueDate } = await import("../../src/workspace/regionJson.js");
+    const pad = (n: number, width: number) => String(n).padStart(width, "0");
+    for (const year of [0, 1, 4, 100, 400, 1600, 1700, 1900, 2000, 2023, 2024, 2027, 2100, 9996, 9999]) {
+      for (let month = 0; month <= 13; month++) {
+        for (let day = 0; day <= 32; day++) {
+          const text = `${pad(year, 4)}-${pad(month, 2)}-${pad(day, 2)}`;
+          expect(isIssueDate(text), text).toBe(isValid(parseISO(text)));
+        }
+      }
+    }
+    for (const text of ["2027-3-10", "27-03-10", "2027-03-10T00:00", "+2027-03-10", " 2027-03-10", "2027/03/10", "", "２０２７-03-10"]) {
+      expect(isIssueDate(text), text).toBe(false);
+    }
+  });
+});
