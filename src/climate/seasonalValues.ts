@@ -105,7 +105,7 @@ export function seasonYearOf(window: MonthWindow, year: number, month: number): 
   const offset = (month - window.firstMonth + 12) % 12;
   if (offset >= window.length) return null;
   const monthsToEnd = window.length - 1 - offset;
-  return fromMonthNumber(monthNumber(year, month) + monthsToEnd).year;
+  return Math.floor((monthNumber(year, month) + monthsToEnd) / 12);
 }
 
 /**
