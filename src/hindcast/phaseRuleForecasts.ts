@@ -370,8 +370,9 @@ export function phaseRuleForecasts(
 }
 
 /**
- * The chi-square p of a phase table (phaseTableChiSquare), looked up by its statistic and degrees of freedom:
- * folds share most of their tables, and the same X² and df always give the same p, so each is computed once.
+ * The chi-square p of a phase table (phaseTableChiSquare): with 2 degrees of freedom (three phases, the usual
+ * case) the closed form in chiSquareUpperTail; with 1, looked up by its statistic (folds share most of their
+ * tables, and the same X² always gives the same p, so each is computed once); above 2, computed.
  */
 const degrees = new Int32Array(1);
 
@@ -379,9 +380,8 @@ function cachedPValue(years: Int32Array, fireYears: Int32Array, offset: number, 
   const chiSquare = phaseTableChiSquareStatistic(years, fireYears, offset, phases, degrees);
   const df = degrees[0] as number;
   if (df === 0) return Number.NaN;
-  if (df > 2) return chiSquareUpperTail(chiSquare, df);
-  // Keys: X² ≥ 0 for df 2 (the usual three phases), −1 − X² for df 1; they cannot collide.
-  const key = df === 2 ? chiSquare : -1 - chiSquare;
+  if (df >= 2) return chiSquareUpperTail(chiSquare, df);
+  const key = chiSquare; // df 1 only
   const hit = cache.get(key);
   if (hit !== undefined) return hit;
   const pValue = chiSquareUpperTail(chiSquare, df);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import jStat from "jstat";
-import { chiSquareIndependence } from "../../src/stats/chiSquareIndependence.js";
+import { chiSquareIndependence, chiSquareUpperTail } from "../../src/stats/chiSquareIndependence.js";
 import { StatsInputError } from "../../src/stats/StatsInputError.js";
 import { agrestiPartyByGender, nistChiSquareCriticalValues, rossGenderTable } from "../fixtures/published/chiSquareExamples.js";
 import { teaTasting } from "../fixtures/published/fisherExactExamples.js";
@@ -193,3 +193,25 @@ function tableWithStatistic(df: number, target: number): number[][] {
     [...Array.from({ length: columns - 1 }, () => m), m - delta],
   ];
 }
+
+describe("chiSquareUpperTail(x, df)", () => {
+  // NIST/SEMATECH e-Handbook of Statistical Methods, 1.3.6.7.4 "Critical values of the chi-square
+  // distribution" (values printed to 3 decimals, so the tail is checked to about 1e-3 relative).
+  it("at the NIST critical values of 1, 2 and 3 degrees of freedom gives the table's upper-tail areas", () => {
+    for (const { df, upperTail, criticalValue } of nistChiSquareCriticalValues) {
+      expect(Math.abs(chiSquareUpperTail(criticalValue, df) / upperTail - 1)).toBeLessThan(2e-3);
+    }
+  });
+
+  it("with 2 degrees of freedom (the closed form e^(−x/2)) agrees with jStat's chi-square CDF to 1e-9 (jStat's own incomplete gamma is good to about 1e-10), and with 1 and 3 (the incomplete gamma) too", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1e-6, max: 40, noNaN: true }), fc.constantFrom(1, 2, 3), (x, df) => {
+        const reference = 1 - jStat.chisquare.cdf(x, df);
+        expect(Math.abs(chiSquareUpperTail(x, df) - reference)).toBeLessThan(1e-9);
+      }),
+      { seed: 20271, numRuns: 500 },
+    );
+    expect(chiSquareUpperTail(0, 2)).toBe(1);
+    expect(chiSquareUpperTail(2 * Math.log(20), 2)).toBeCloseTo(0.05, 15);
+  });
+});
