@@ -157,6 +157,7 @@ export function readIndexCsv(
     years: new Float64Array(rowCount),
     months: new Int32Array(rowCount),
     rows: new Int32Array(rowCount),
+    stride: rowCount,
     values: new Float64Array(rowCount * columnCount),
   };
   const texts: string[] = [];
@@ -175,13 +176,8 @@ export function readIndexCsv(
   };
   const reported = new Set<string>();
   const perIndex = indices.map((index) => {
-    const own = ownCells(cells, wide ? null : valueColumns.indexOf(index.column), columnCount);
-    const declared = index.missing ?? [];
-    for (let i = 0; i < own.values.length; i++) {
-      const value = own.values[i] as number;
-      if (!Number.isNaN(value) && declared.includes(value)) own.values[i] = NaN;
-    }
-    checkMissingCodes(index, own, cells, layout, problems, reported, textOf);
+    const own = ownCells(cells, wide ? null : valueColumns.indexOf(index.column), columnCount, index.missing ?? []);
+    if (own.suspect) checkMissingCodes(index, own, cells, layout, problems, reported, textOf);
     return own;
   });
   if (problems.size > 0) return { series: [], warnings: [] };
@@ -272,12 +268,12 @@ function readRows(
     cells.years[at] = year;
     cells.months[at] = month;
     cells.rows[at] = row;
-    cells.values.set(rowValues, at * columnCount);
+    for (let column = 0; column < columnCount; column++) cells.values[column * cells.stride + at] = rowValues[column] as number;
   }
 }
 
 /**
- * The fast path, for the values from {@link CsvTable.plainNumbers}: keeps every row in `cells`
+ * The fast path, for the values from {@link CsvTable.plainNumbers} (Infinity = empty cell): keeps every row in `cells`
  * when no year (or month) is out of range and none repeats, and returns true; returns false at
  * the first row that would be a problem (the caller then takes the general path, which reports it).
  */
@@ -295,7 +291,10 @@ function keepPlainRows(values: Float64Array, table: CsvTable, cells: Cells, long
     cells.years[row] = year;
     cells.months[row] = month;
     cells.rows[row] = row;
-    for (let column = 0; column < columnCount; column++) cells.values[row * columnCount + column] = values[row * width + width - columnCount + column] as number;
+    for (let column = 0; column < columnCount; column++) {
+      const value = values[row * width + width - columnCount + column] as number;
+      cells.values[column * cells.stride + row] = value === Infinity ? NaN : value;
+    }
   }
   cells.count = table.rowCount;
   return true;
@@ -309,7 +308,9 @@ interface Cells {
   readonly months: Int32Array;
   /** The data row of the table each kept row came from. */
   readonly rows: Int32Array;
-  /** Row by row, every value column; NaN = empty cell. */
+  /** Room for this many rows per column. */
+  readonly stride: number;
+  /** Column by column (column c, kept row at: `values[c × stride + at]`); NaN = empty cell. */
   readonly values: Float64Array;
 }
 
@@ -320,23 +321,31 @@ interface Cells {
 interface OwnCells {
   /** NaN = missing (an empty cell, or a declared missing code). */
   readonly values: Float64Array;
+  /** Whether a value is large enough to be a missing-value code or an outlier (see checkMissingCodes). */
+  readonly suspect: boolean;
   /** The value column of cell i (a wide file's month is this + 1). */
   readonly columnOf: (i: number) => number;
   readonly rowOf: (i: number) => number;
 }
 
-function ownCells(cells: Cells, column: number | null, columnCount: number): OwnCells {
+/** The cells of value column `column` (or of every column for a wide file), with the declared missing codes made missing. */
+function ownCells(cells: Cells, column: number | null, columnCount: number, declared: readonly number[]): OwnCells {
   const count = cells.count;
-  if (column !== null) {
-    const values = new Float64Array(count);
-    for (let at = 0; at < count; at++) values[at] = cells.values[at * columnCount + column] as number;
-    return { values, columnOf: () => column, rowOf: (i) => i };
+  const first = column ?? 0;
+  const columns = column === null ? columnCount : 1;
+  const values = new Float64Array(count * columns);
+  let suspect = false;
+  for (let c = 0; c < columns; c++) {
+    const from = (first + c) * cells.stride;
+    for (let at = 0; at < count; at++) {
+      let value = cells.values[from + at] as number;
+      if (declared.length > 0 && declared.includes(value)) value = NaN;
+      values[c * count + at] = value;
+      if (Math.abs(value) >= SMALLEST_SUSPECT) suspect = true;
+    }
   }
-  const values = new Float64Array(count * columnCount);
-  for (let month = 0; month < columnCount; month++) {
-    for (let at = 0; at < count; at++) values[month * count + at] = cells.values[at * columnCount + month] as number;
-  }
-  return { values, columnOf: (i) => Math.floor(i / count), rowOf: (i) => i % count };
+  if (column !== null) return { values, suspect, columnOf: () => column, rowOf: (i) => i };
+  return { values, suspect, columnOf: (i) => Math.floor(i / count), rowOf: (i) => i % count };
 }
 
 const valueOrNull = (value: number): number | null => (Number.isNaN(value) ? null : value);
