@@ -150,18 +150,26 @@ export function seasonalValues(monthly: readonly MonthlyValue[], window: MonthWi
   const values: (number | null)[] = [];
   const incomplete: IncompleteSeason[] = [];
   for (let season = firstSeason; season <= lastSeason; season++) {
-    const months = seasonMonths(window, season);
-    const missing = months.filter((m) => {
-      const value = byMonth.get(monthNumber(m.year, m.month));
-      return value === undefined || value === null;
-    });
+    // The season's months as month numbers, first to last (as seasonMonths gives them); the
+    // {year, month} objects are made only for a season with a month missing.
+    const end = monthNumber(season, window.lastMonth);
+    let sum = 0;
+    let complete = true;
+    for (let number = end - window.length + 1; number <= end; number++) {
+      const value = byMonth.get(number);
+      if (value === undefined || value === null) complete = false;
+      else sum += value;
+    }
     years.push(season);
-    if (missing.length > 0) {
+    if (complete) {
+      values.push(sum / window.length);
+    } else {
+      const missing = seasonMonths(window, season).filter((m) => {
+        const value = byMonth.get(monthNumber(m.year, m.month));
+        return value === undefined || value === null;
+      });
       values.push(null);
       incomplete.push({ year: season, missing });
-    } else {
-      const sum = months.reduce((total, m) => total + (byMonth.get(monthNumber(m.year, m.month)) as number), 0);
-      values.push(sum / months.length);
     }
   }
   return { years, values, incomplete };
