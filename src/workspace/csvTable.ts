@@ -83,7 +83,8 @@ function plainNumbersOf(lines: string, rowCount: number, header: readonly string
   // A row that is not plain stops the replacement and is left as it was, with its line feed.
   if (replaced.includes("\n")) return null;
   // Every cell now ends with a comma; with one more in front, an empty cell is a comma followed by a comma.
-  const parsed = JSON.parse(`[${`,${replaced}`.replace(/,(?=,)/g, ",1e999").slice(1, -1)}]`) as number[];
+  const numbers = `,${replaced}`;
+  const parsed = JSON.parse(`[${(numbers.includes(",,") ? numbers.replace(/,(?=,)/g, ",1e999") : numbers).slice(1, -1)}]`) as number[];
   return parsed.length === rowCount * wanted.length ? new Float64Array(parsed) : null;
 }
 
