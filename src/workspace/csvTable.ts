@@ -134,8 +134,14 @@ function firstInvalidUtf8Line(bytes: Uint8Array): number | null {
 
 const quote = (text: string): string => `"${echoText(text).replaceAll('"', '\\"')}"`;
 
-/** A growable list of 32-bit integers (a record's offset, line and field count), far smaller than objects per record. */
-class IntList {
+/** A sequence of integers read by position (a record's offset, line or field count). */
+interface IntSequence {
+  readonly length: number;
+  at(index: number): number;
+}
+
+/** A growable list of 32-bit integers, far smaller than objects per record. */
+class IntList implements IntSequence {
   private data = new Int32Array(1024);
   length = 0;
 
@@ -153,19 +159,56 @@ class IntList {
   }
 }
 
+/** first, first + step, first + 2 × step, … (`length` of them). */
+class Arithmetic implements IntSequence {
+  constructor(
+    readonly length: number,
+    private readonly first: number,
+    private readonly step: number,
+  ) {}
+
+  at(index: number): number {
+    return this.first + index * this.step;
+  }
+}
+
+/** Where each of the first `length` lines of a text starts, found when first asked for. */
+class LineStarts implements IntSequence {
+  private starts: IntList | null = null;
+
+  constructor(
+    private readonly text: string,
+    readonly length: number,
+  ) {}
+
+  at(index: number): number {
+    if (this.starts === null) {
+      const starts = new IntList();
+      for (let start = 0; starts.length < this.length; start = this.text.indexOf("\n", start) + 1) starts.push(start);
+      this.starts = starts;
+    }
+    return this.starts.at(index);
+  }
+}
+
 /**
  * Where each record of a file starts: its offset in the text, its physical line and its number of
  * fields. Fields are cut out only when a row is reached, so a file of millions of rows does not
  * hold millions of objects at once.
  */
 interface RecordIndex {
-  readonly offsets: IntList;
-  readonly lines: IntList;
+  readonly offsets: IntSequence;
+  readonly lines: IntSequence;
   /** Number of fields; negative for a `#` comment line of a CSV file. */
-  readonly counts: IntList;
+  readonly counts: IntSequence;
   readonly error: { readonly line: number; readonly message: string } | null;
   /** One record per physical line, without double quotes (see {@link indexPlainCsv}). */
   readonly plain: boolean;
+  /**
+   * For a text whose first line is its header and whose every other line is a data row of as
+   * many fields (see {@link indexUniformCsv}): where the data rows' text starts and ends; else null.
+   */
+  readonly uniform: { readonly start: number; readonly end: number } | null;
 }
 
 const CR = 13;
@@ -290,7 +333,7 @@ function indexCsv(text: string): RecordIndex {
   let line = 1;
   while (i < text.length) {
     const record = readCsvRecord(text, i, line, null);
-    if (record.error !== null) return { offsets, lines, counts, error: record.error, plain: false };
+    if (record.error !== null) return { offsets, lines, counts, error: record.error, plain: false, uniform: null };
     if (!record.blank) {
       let first = i;
       while (text.charCodeAt(first) === SPACE || text.charCodeAt(first) === TAB) first++;
@@ -301,7 +344,7 @@ function indexCsv(text: string): RecordIndex {
     i = record.next;
     line = record.line;
   }
-  return { offsets, lines, counts, error: null, plain: false };
+  return { offsets, lines, counts, error: null, plain: false, uniform: null };
 }
 
 /**
@@ -314,6 +357,8 @@ function indexCsv(text: string): RecordIndex {
 function indexPlainCsv(text: string): RecordIndex | null {
   if (text.includes('"')) return null;
   for (let at = text.indexOf("\r"); at >= 0; at = text.indexOf("\r", at + 1)) if (text.charCodeAt(at + 1) !== LF) return null;
+  const uniform = indexUniformCsv(text);
+  if (uniform !== null) return uniform;
   const offsets = new IntList();
   const lines = new IntList();
   const counts = new IntList();
@@ -339,7 +384,43 @@ function indexPlainCsv(text: string): RecordIndex | null {
     }
     start = next;
   }
-  return { offsets, lines, counts, error: null, plain: true };
+  return { offsets, lines, counts, error: null, plain: true, uniform: null };
+}
+
+/**
+ * The record index of a text that {@link indexPlainCsv} accepts, when its first line is the
+ * header (no leading space, tab or `#`) and every later line, up to the last that is not blank,
+ * is a data row with as many fields as the header and neither blank nor a `#` line; otherwise
+ * null. One regular expression checks all the rows (in sticky, global mode: each row must follow
+ * the one before), so nothing is done per line in JavaScript; where each line starts is found only
+ * if a caller asks (see {@link LineStarts}).
+ */
+function indexUniformCsv(text: string): RecordIndex | null {
+  const first = text.charCodeAt(0);
+  if (first === SPACE || first === TAB || first === HASH || first === CR || first === LF || text.length === 0) return null;
+  const feed = text.indexOf("\n");
+  if (feed < 0) return null;
+  const headerEnd = text.charCodeAt(feed - 1) === CR ? feed - 1 : feed;
+  let commas = 0;
+  for (let comma = text.indexOf(","); comma >= 0 && comma < headerEnd; comma = text.indexOf(",", comma + 1)) commas++;
+  // The data rows: from the second line to the end of the last line that is not blank.
+  const start = feed + 1;
+  let end = text.length;
+  while (end > start && (text.charCodeAt(end - 1) === SPACE || text.charCodeAt(end - 1) === TAB || text.charCodeAt(end - 1) === CR || text.charCodeAt(end - 1) === LF)) end--;
+  if (end === start) return null;
+  const rest = text.slice(start, end);
+  const row = new RegExp(`(?![ \\t]*(?:#|\\r?\\n))[^,\\r\\n]*(?:,[^,\\r\\n]*){${commas}}\\r?\\n`, "gy");
+  if (`${rest}\n`.replace(row, "") !== "") return null;
+  const records = 2 + (rest.match(/\n/g)?.length ?? 0);
+  const lastFeed = text.indexOf("\n", end);
+  return {
+    offsets: new LineStarts(text, records),
+    lines: new Arithmetic(records, 1, 1),
+    counts: new Arithmetic(records, commas + 1, 0),
+    error: null,
+    plain: true,
+    uniform: { start, end: lastFeed < 0 ? text.length : lastFeed + 1 },
+  };
 }
 
 /** The fields of the record at `start` of a text that {@link indexPlainCsv} indexed. */
@@ -389,7 +470,7 @@ function indexWhitespace(text: string): RecordIndex {
     line++;
     i = end >= text.length ? text.length : afterBreak(text, end);
   }
-  return { offsets, lines, counts, error: null, plain: false };
+  return { offsets, lines, counts, error: null, plain: false, uniform: null };
 }
 
 /** The first line that is neither blank nor a `#` line has no comma and no double quote. */
@@ -541,8 +622,8 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
     return fields;
   };
 
-  let headerRecord = -1;
-  for (let record = 0; record < index.offsets.length; record++) {
+  let headerRecord = index.uniform === null ? -1 : 0;
+  for (let record = 0; index.uniform === null && record < index.offsets.length; record++) {
     if (index.counts.at(record) < 0) {
       const shown = fieldsAt(record).join(",");
       problems.add(index.lines.at(record), `comment lines are not allowed (found ${quote(shown)})`);
@@ -576,13 +657,18 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
   }
   if (!headerOk) return null;
 
-  // A row is kept when it has as many fields as the header (a whitespace row may stop early).
-  const kept = new IntList();
-  for (let record = headerRecord + 1; record < index.offsets.length; record++) {
-    const count = index.counts.at(record);
-    if (count < 0) continue;
-    if (count === columns.length || (layout === "whitespace" && count < columns.length)) kept.push(record);
-    else problems.add(index.lines.at(record), `expected ${columns.length} fields as in the header, found ${count}`);
+  // A row is kept when it has as many fields as the header (a whitespace row may stop early);
+  // every row of a uniform text is.
+  let kept: IntSequence = new Arithmetic(index.offsets.length - 1, 1, 1);
+  if (index.uniform === null) {
+    const list = new IntList();
+    for (let record = headerRecord + 1; record < index.offsets.length; record++) {
+      const count = index.counts.at(record);
+      if (count < 0) continue;
+      if (count === columns.length || (layout === "whitespace" && count < columns.length)) list.push(record);
+      else problems.add(index.lines.at(record), `expected ${columns.length} fields as in the header, found ${count}`);
+    }
+    kept = list;
   }
   if (kept.length === 0 && problems.size === 0) problems.add(null, "the file has a header but no data rows");
   const rows: Iterable<CsvRow> = {
@@ -622,6 +708,7 @@ export function readCsvTable(bytes: Uint8Array, required: readonly string[], pro
     };
   };
   const plainNumbers = (wanted: readonly PlainColumn[]): Float64Array | null => {
+    if (index.uniform !== null) return plainNumbersOf(text.slice(index.uniform.start, index.uniform.end), kept.length, columns, wanted);
     if (!index.plain || kept.length === 0) return null;
     // The data rows must be the records after the header, on consecutive lines (no blank line,
     // comment or row of the wrong length among them).
