@@ -358,6 +358,10 @@ try {
     const printFloorScript = writePrintFloorScript(scratch, browser.executablePath, htmlPath, embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]));
     const printed = pairs("print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
     const floorOnly = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
+    // One more cold brief with its stage timings (FIREPHASE_TIMINGS=1): where the user's wait goes.
+    const staged = spawnSync(process.execPath, briefArgs([demoCopy], ["--out", out]), { cwd: scratch, encoding: "utf8", env: { ...process.env, FIREPHASE_TIMINGS: "1" } });
+    const stages = [...(staged.stderr ?? "").matchAll(/^firephase: timing (\d+) ms (.+)$/gm)].map((match) => `${match[1].padStart(6)} ms  ${match[2]}`);
+    console.log(`\nOne cold brief, time since process start at the end of each stage (FIREPHASE_TIMINGS=1):\n${stages.join("\n")}`);
     headline.push(
       `brief demo-region ÷ browser floor: ${brief.ratio.toFixed(2)}× (target ≤ 1.5×; ${brief.b.median.toFixed(0)} ms against ${brief.a.median.toFixed(0)} ms)${brief.cpuRatio === null ? "" : `; CPU time of the node process ${brief.cpuRatio.toFixed(2)}×`}`,
       `  of which printing the briefing's own ${pdfPages(out)}-page document: print floor ÷ browser floor ${floorOnly.ratio.toFixed(2)}× (${floorOnly.b.median.toFixed(0)} ms against ${floorOnly.a.median.toFixed(0)} ms)`,

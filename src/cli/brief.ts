@@ -17,6 +17,7 @@ import type { Review, SinceLastBriefing } from "../review/types.js";
 import type { Calibration } from "../calibrate/types.js";
 import type { Workspace } from "../workspace/types.js";
 import { checkOutputTargets, OutputPathError, outputNameProblem, realTarget, writeFilesAtomic, type FileToWrite } from "./writeFileAtomic.js";
+import { stageTimer } from "./stageTimings.js";
 
 /** Options of `firephase brief`, as commander parses them. */
 export interface BriefOptions {
@@ -183,6 +184,8 @@ function paperOption(value: string | undefined): PaperSize {
  * await runBrief("demo-region", { out: "brief.pdf" }, { cwd: process.cwd(), today: new Date(), env: process.env });
  */
 export async function runBrief(region: string, options: BriefOptions, context: BriefContext): Promise<BriefResult> {
+  const mark = stageTimer(context.env);
+  mark("brief started");
   const paper = paperOption(options.paper);
   checkOutputNames(options);
   const force = options.force === true;
@@ -205,6 +208,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       : findBrowser({ explicit: options.browser, env: context.env })
           .then(async (browser) => (await import("../briefing/printPdf.js")).PdfPrinter.launch(browser))
           .then(async (printer) => {
+            mark("browser started");
             try {
               await printer.warmUp();
             } catch (error) {
@@ -217,7 +221,9 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   const printerPromise: Promise<HtmlPrinter> = launched ?? Promise.resolve(context.printer as HtmlPrinter);
   try {
     const { loadWorkspace, runCalibration, buildOutlookBeside, toOutlookJson, buildBriefingView, embeddedFontCss, renderBriefingHtml, progressReporter } = await briefModules();
+    mark("modules loaded");
     const workspace = await loadWorkspace(located(region, context.cwd));
+    mark("region read");
     // Never overwrite the region's own inputs with a briefing (real paths: links resolved).
     const inputs = await Promise.all(workspace.files.map(async (file) => ({ file, real: await realTarget(resolve(workspace.root, file.path)) })));
     for (const target of [outGiven, htmlGiven]) {
@@ -256,7 +262,9 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       });
     }
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
-    const outlook = await buildOutlookBeside(workspace, calibration, request);
+    mark("calibrated");
+    const outlook = await buildOutlookBeside(workspace, calibration, request, mark);
+    mark("outlook with its hindcast");
     const safetyPath = context.safetyPath ?? PACKAGE_SAFETY_PATH;
     let safetyMarkdown: string;
     try {
@@ -268,7 +276,9 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     const outlookText = jsonText(toOutlookJson(outlook));
     const { review, sinceLast } = await briefingMemory(workspace, calibration, outlookText, keptTarget);
     const view = buildBriefingView({ workspace, calibration, outlook, toolVersion: firephaseVersion(), safetyMarkdown, paper, madeAt, review, sinceLast });
+    mark("view model built");
     const html = renderBriefingHtml(view);
+    mark("HTML rendered");
     await outputChecked(() => checkOutputTargets(targets, replace));
     let printer: HtmlPrinter;
     try {
@@ -282,6 +292,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       footerHtml: escapeHtml(view.footerText),
       footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]),
     });
+    mark("PDF printed");
     const files: FileToWrite[] = [{ path: pdfTarget, data: printed.pdf }];
     if (htmlGiven !== null) files.push({ path: htmlGiven, data: html });
     if (keptTarget !== null) files.push({ path: keptTarget, data: outlookText });
@@ -298,6 +309,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       if (madeFolder) await rmdir(issuedFolder).catch(() => undefined);
       throw error;
     }
+    mark("files written");
     return {
       pdfPath: resolve(pdfTarget),
       htmlPath: htmlGiven === null ? null : resolve(htmlGiven),
@@ -308,6 +320,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
     };
   } finally {
     await launched?.then((printer) => printer.close()).catch(() => undefined);
+    mark("browser closed");
   }
 }
 

@@ -6,6 +6,7 @@ import { attachHindcast, buildOutlookWithoutHindcast, outlookHindcastInput, type
 import type { Outlook } from "../outlook/types.js";
 import type { Workspace } from "../workspace/types.js";
 import type { FromHindcastWorker } from "./hindcastWorker.js";
+import type { StageMark } from "./stageTimings.js";
 
 const WORKER_URL = new URL("./hindcastWorker.js", import.meta.url);
 /** Running from the compiled JavaScript (not from the TypeScript sources under a test runner). */
@@ -46,13 +47,22 @@ function hindcastInWorker(input: ReturnType<typeof outlookHindcastInput>): Promi
  * Every part draws from its own seeded stream, so the result is byte-for-byte the one-thread result. Used from
  * the main thread of the compiled program; in a worker thread (a batch already uses every core) or from the
  * sources under a test runner, every part is computed here.
+ *
+ * @param mark - marks each part's end (stageTimer; FIREPHASE_TIMINGS=1).
  */
-export async function buildOutlookBeside(workspace: Workspace, calibration: Calibration, request: OutlookRequest): Promise<Outlook> {
+export async function buildOutlookBeside(
+  workspace: Workspace,
+  calibration: Calibration,
+  request: OutlookRequest,
+  mark: StageMark = () => undefined,
+): Promise<Outlook> {
   const input = outlookHindcastInput(workspace, calibration, request);
   const phaseInput = { ...input, curveRule: false };
-  const pending = COMPILED && isMainThread ? hindcastInWorker(phaseInput) : Promise.resolve(null);
+  const pending = COMPILED && isMainThread ? hindcastInWorker(phaseInput).then((skill) => (mark("phase rule's hindcast (worker thread)"), skill)) : Promise.resolve(null);
   const rest = buildOutlookWithoutHindcast(workspace, calibration, request);
+  mark("outlook but its hindcast (selection-aware interval)");
   const curveRule = input.curveRule === false ? null : runCurveRuleHindcast(input);
+  mark("curve rule's hindcast");
   const phaseRule = (await pending) ?? runHindcast(phaseInput);
   return attachHindcast(rest, curveRule === null ? phaseRule : withCurveRule(phaseRule, curveRule));
 }
