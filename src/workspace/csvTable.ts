@@ -59,32 +59,46 @@ const ANY_CELL = "[^,\\r\\n]*";
 /**
  * See {@link CsvTable.plainNumbers}: `lines` is the text of the data rows (one per line, CRLF or
  * LF), `header` the column names. Each row is matched by one regular expression (in sticky,
- * global mode, so the rows must follow one another) and replaced by its wanted cells as JSON
- * numbers (an empty cell by 1e999, read as Infinity, which no plain cell can be); `JSON.parse`
- * then reads them all. The built-in code does the work that a loop over every character and cell
- * would do far more slowly while the reader is not yet compiled. JSON reads a number as `Number`
- * does (the nearest double), so the values are those of the general path.
+ * global mode, so the rows must follow one another); a row that does not match stops it. The
+ * wanted cells become a JSON array of numbers (an empty cell 1e999, read as Infinity, which no
+ * plain cell can be) that `JSON.parse` reads: the built-in code does the work that a loop over
+ * every character and cell would do far more slowly while the reader is not yet compiled. JSON
+ * reads a number as `Number` does (the nearest double), so the values are those of the general
+ * path. When the wanted columns are the whole header in its order, the rows are checked without
+ * captures and the line feeds become the commas (a CR before one is white space in JSON);
+ * otherwise each row is replaced by its wanted cells.
  */
 function plainNumbersOf(lines: string, rowCount: number, header: readonly string[], wanted: readonly PlainColumn[]): Float64Array | null {
   const slotOf = new Map<string, number>();
   wanted.forEach((column, slot) => slotOf.set(column.name, slot));
   // Each wanted column once, in the header, and at most 99 of them ($1 … $99 in the replacement).
   if (slotOf.size !== wanted.length || wanted.length > 99 || wanted.some((column) => !header.includes(column.name))) return null;
+  const whole = wanted.length === header.length && wanted.every((column, position) => column.name === header[position]);
   const groupOfSlot = new Array<number>(wanted.length);
   let groups = 0;
   const cells = header.map((name) => {
     const slot = slotOf.get(name);
     if (slot === undefined) return ANY_CELL;
     groupOfSlot[slot] = ++groups;
-    return `(${(wanted[slot] as PlainColumn).integer ? PLAIN_INTEGER_CELL : PLAIN_DECIMAL_CELL})`;
+    const cell = (wanted[slot] as PlainColumn).integer ? PLAIN_INTEGER_CELL : PLAIN_DECIMAL_CELL;
+    return whole ? cell : `(${cell})`;
   });
   const row = new RegExp(`${cells.join(",")}\\r?\\n`, "gy");
-  const replaced = (lines.endsWith("\n") ? lines : `${lines}\n`).replace(row, groupOfSlot.map((group) => `$${group},`).join(""));
-  // A row that is not plain stops the replacement and is left as it was, with its line feed.
-  if (replaced.includes("\n")) return null;
-  // Every cell now ends with a comma; with one more in front, an empty cell is a comma followed by a comma.
-  const numbers = `,${replaced}`;
-  const parsed = JSON.parse(`[${(numbers.includes(",,") ? numbers.replace(/,(?=,)/g, ",1e999") : numbers).slice(1, -1)}]`) as number[];
+  const text = lines.endsWith("\n") ? lines : `${lines}\n`;
+  let joined: string;
+  if (whole) {
+    if (text.replace(row, "") !== "") return null;
+    joined = text.replaceAll("\n", ",");
+  } else {
+    joined = text.replace(row, groupOfSlot.map((group) => `$${group},`).join(""));
+    // A row that is not plain is left as it was, with its line feed.
+    if (joined.includes("\n")) return null;
+  }
+  // Every cell now ends with a comma (and maybe a CR); with one more comma in front, an empty cell
+  // is a comma followed by a comma.
+  const numbers = `,${joined}`;
+  const filled = numbers.includes(",,") || numbers.includes(",\r,") ? numbers.replace(/,(?=\r?,)/g, ",1e999") : numbers;
+  const parsed = JSON.parse(`[${filled.slice(1, -1)}]`) as number[];
   return parsed.length === rowCount * wanted.length ? new Float64Array(parsed) : null;
 }
 

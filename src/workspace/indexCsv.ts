@@ -279,14 +279,23 @@ function readRows(
  */
 function keepPlainRows(values: Float64Array, table: CsvTable, cells: Cells, long: boolean, columnCount: number): boolean {
   const width = columnCount + (long ? 2 : 1);
-  const seen = new Set<number>();
+  // Keys that only grow cannot repeat: the set of keys is built only once a key does not grow.
+  let seen: Set<number> | null = null;
+  let last = -Infinity;
   for (let row = 0; row < table.rowCount; row++) {
     const year = values[row * width] as number;
     const month = long ? (values[row * width + 1] as number) : 0;
     if (year < YEAR_RANGE.min || year > YEAR_RANGE.max || (long && (month < MONTH_RANGE.min || month > MONTH_RANGE.max))) return false;
     const key = year * 16 + month;
-    if (seen.has(key)) return false;
-    seen.add(key);
+    if (seen === null && key <= last) {
+      seen = new Set<number>();
+      for (let before = 0; before < row; before++) seen.add((cells.years[before] as number) * 16 + (cells.months[before] as number));
+    }
+    if (seen !== null) {
+      if (seen.has(key)) return false;
+      seen.add(key);
+    }
+    last = key;
     cells.lines[row] = table.lineOf(row);
     cells.years[row] = year;
     cells.months[row] = month;
