@@ -3,12 +3,15 @@
 // hundreds of modules one by one. The commands stay lazy: each dynamic import() becomes its own chunk
 // (code splitting), so `check` still never loads the browser, the charts or the templates.
 //
-// Kept outside the bundle (resolved from node_modules at run time, as before):
-//   - puppeteer-core and @sparticuz/chromium: they find their own files (the packed browser) beside
-//     their package, which a bundle would move;
-// Everything else (commander, date-fns, d3, handlebars, pure-rand, @stdlib, the project's code) is
-// bundled. dist/bin/ sits two folders below the package root, like dist/cli/, so the paths the code
-// builds from import.meta.url (package.json, SAFETY.md, templates/, the fonts) resolve the same.
+// Kept outside the bundle (resolved from node_modules at run time, as before): @sparticuz/chromium,
+// which finds its packed browser beside its package (a bundle would move its code away from it); and
+// the optional native helpers of the WebSocket library (bufferutil, utf-8-validate), which it loads
+// only when installed. puppeteer-core is bundled (a chunk of its own, loaded only by `brief`): loading
+// it module by module took about 150 ms of the launch. handlebars is loaded by renderBriefingHtml
+// through createRequire, at run time. Everything else (commander, d3, pure-rand, @stdlib, the
+// project's code) is bundled. dist/bin/ sits two folders below the package root, like dist/cli/, so
+// the paths the code builds from import.meta.url (package.json, SAFETY.md, templates/, the fonts)
+// resolve the same.
 // The worker threads' entries (hindcastWorker, briefWorker) are entry points of their own, so
 // `new URL("./hindcastWorker.js", import.meta.url)` finds them beside the chunk that starts them.
 import { build } from "esbuild";
@@ -30,10 +33,10 @@ const result = await build({
   format: "esm",
   platform: "node",
   target: "node20",
-  external: ["puppeteer-core", "@sparticuz/chromium"],
+  external: ["@sparticuz/chromium", "bufferutil", "utf-8-validate"],
   // CommonJS packages inside an ES-module bundle call require() for Node's own modules.
   banner: { js: "import { createRequire as firephaseCreateRequire } from 'node:module'; const require = firephaseCreateRequire(import.meta.url);" },
-  legalComments: "none",
+  legalComments: "eof", // the bundled packages' licence comments kept at the end of each file
   logLevel: "warning",
   write: false,
 });

@@ -79,6 +79,9 @@ function located(path: string, cwd: string): string {
   return isAbsolute(path) || resolve(cwd) === process.cwd() ? path : join(cwd, path);
 }
 
+/** A promise settled after `ms` milliseconds (a timer, so the event loop turns and I/O callbacks run). */
+const pause = (ms: number): Promise<void> => new Promise((resolvePause) => setTimeout(resolvePause, ms));
+
 /** Output-path problems are usage errors: `cannot write <path>: <reason>`, exit 2. */
 async function outputChecked<T>(work: () => Promise<T>): Promise<T> {
   try {
@@ -202,11 +205,23 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   // --out-dir is made (mkdir -p) before any work; a batch has made it already.
   if (options.outDir !== undefined && context.printer === undefined) await (await import("./briefBatch.js")).ensureOutDir(options.outDir, context.cwd);
   // Start the browser now (unless a batch shares one): it launches while the modules load and the statistics are computed.
+  // Resolves when the browser program is about to be started (its library loaded, the program found), so
+  // the computation below can let it start first: the computation holds this thread, and a launch that has
+  // not yet spawned the browser would wait behind it instead of running beside it.
+  let launching: () => void = () => undefined;
+  const aboutToLaunch = new Promise<void>((resolveLaunching) => {
+    launching = resolveLaunching;
+  });
   const launched =
     context.printer !== undefined
       ? null
       : findBrowser({ explicit: options.browser, env: context.env })
-          .then(async (browser) => (await import("../briefing/printPdf.js")).PdfPrinter.launch(browser))
+          .then(async (browser) => {
+            const { PdfPrinter } = await import("../briefing/printPdf.js");
+            launching();
+            mark("browser launching");
+            return PdfPrinter.launch(browser);
+          })
           .then(async (printer) => {
             mark("browser started");
             try {
@@ -260,6 +275,12 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       await Promise.race([launched.then(() => undefined), new Promise<void>((resolveNow) => setImmediate(resolveNow))]).catch((error: unknown) => {
         throw error instanceof BrowserNotFoundError ? new UsageError(error.message) : error;
       });
+    }
+    if (launched !== null) {
+      // Let the launch reach the point where the browser process runs (a few turns of the event loop; at
+      // most 50 ms, and not at all after a failed launch), so it starts up on its own during the computation.
+      await Promise.race([aboutToLaunch.then(() => pause(5)).then(() => pause(5)), launched.then(() => undefined), pause(50)]).catch(() => undefined);
+      mark("browser process started");
     }
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
     mark("calibrated");
