@@ -48,13 +48,12 @@ if (!existsSync(join(root, "dist", "cli", "brief.js"))) {
 }
 const { loadWorkspace } = await import(dist("workspace/loadWorkspace.js"));
 const { runCalibration } = await import(dist("calibrate/runCalibration.js"));
-const { buildOutlook } = await import(dist("outlook/buildOutlook.js"));
+const { buildOutlook, outlookHindcastInput } = await import(dist("outlook/buildOutlook.js"));
 const { runBrief } = await import(dist("cli/brief.js"));
 const { findBrowser } = await import(dist("briefing/findBrowser.js"));
 const { PdfPrinter, BROWSER_ARGS } = await import(dist("briefing/printPdf.js"));
 const { embeddedFontCss } = await import(dist("briefing/embeddedFonts.js"));
 const { runHindcast } = await import(dist("hindcast/runHindcast.js"));
-const { valuesByYear } = await import(dist("calibrate/activityByYear.js"));
 const { createRandom } = await import(dist("stats/createRandom.js"));
 
 const REPEATS = Number(process.env.BENCH_REPEATS ?? 5);
@@ -107,21 +106,8 @@ async function compute(region) {
 async function hindcastInputOf(region) {
   const workspace = await loadWorkspace(region);
   const calibration = runCalibration(workspace);
-  const { settings } = workspace;
-  return {
-    years: calibration.years,
-    activity: calibration.activity,
-    indexValues: new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)])),
-    indexSettings: settings.indices,
-    indices: settings.indices.map((index) => index.name),
-    top: settings.fireYears.top,
-    measure: settings.fireYears.measure,
-    exclusion: settings.methods.hindcastExclusion,
-    jointMinYears: settings.methods.jointMinYears,
-    jointMaxQ: settings.methods.jointMaxQ,
-    seed: settings.seed,
-    blockYears: settings.methods.blockYears,
-  };
+  const values = Object.fromEntries(workspace.settings.indices.map((index) => [index.name, 0]));
+  return outlookHindcastInput(workspace, calibration, { values, issued: "2027-03-10", season: 2027 });
 }
 
 /** An invented record of `years` years: 4 indices (2 fixed cuts, 2 terciles), a planted link to the first. */

@@ -425,35 +425,45 @@ function evaluateQuadratic(x: Float64Array, y: Uint8Array, m: number, c0: number
 
 /** Solves information · step = score (2×2 or 3×3, symmetric positive definite); null when singular. */
 function solve(size: 2 | 3): Float64Array | null {
-  const a = information[0] as number;
-  const b = information[1] as number;
-  const d = information[4] as number;
+  return solveInformation(information, score, size, stepOut) ? stepOut : null;
+}
+
+/**
+ * Solves matrix · out = rhs for a symmetric positive definite 2×2 or 3×3 information matrix (row-major 3×3
+ * storage, entries 0, 1, 2, 4, 5 and 8 read): the 2×2 by its determinant, the 3×3 by Cholesky.
+ *
+ * @returns false when the matrix is singular or not positive definite (out is then not meaningful).
+ */
+export function solveInformation(matrix: Float64Array, rhs: Float64Array, size: 2 | 3, out: Float64Array): boolean {
+  const a = matrix[0] as number;
+  const b = matrix[1] as number;
+  const d = matrix[4] as number;
   if (size === 2) {
     const determinant = a * d - b * b;
-    if (!(determinant > 0) || !Number.isFinite(determinant)) return null;
-    stepOut[0] = (d * (score[0] as number) - b * (score[1] as number)) / determinant;
-    stepOut[1] = (a * (score[1] as number) - b * (score[0] as number)) / determinant;
-    return stepOut;
+    if (!(determinant > 0) || !Number.isFinite(determinant)) return false;
+    out[0] = (d * (rhs[0] as number) - b * (rhs[1] as number)) / determinant;
+    out[1] = (a * (rhs[1] as number) - b * (rhs[0] as number)) / determinant;
+    return true;
   }
-  const c = information[2] as number;
-  const e = information[5] as number;
-  const f = information[8] as number;
+  const c = matrix[2] as number;
+  const e = matrix[5] as number;
+  const f = matrix[8] as number;
   // Cholesky of [[a, b, c], [b, d, e], [c, e, f]].
   const l00 = Math.sqrt(a);
   const l10 = b / l00;
   const l20 = c / l00;
   const l11sq = d - l10 * l10;
-  if (!(l11sq > 0)) return null;
+  if (!(l11sq > 0)) return false;
   const l11 = Math.sqrt(l11sq);
   const l21 = (e - l20 * l10) / l11;
   const l22sq = f - l20 * l20 - l21 * l21;
-  if (!(l22sq > 0) || !Number.isFinite(l22sq)) return null;
+  if (!(l22sq > 0) || !Number.isFinite(l22sq)) return false;
   const l22 = Math.sqrt(l22sq);
-  const z0 = (score[0] as number) / l00;
-  const z1 = ((score[1] as number) - l10 * z0) / l11;
-  const z2 = ((score[2] as number) - l20 * z0 - l21 * z1) / l22;
-  stepOut[2] = z2 / l22;
-  stepOut[1] = (z1 - l21 * (stepOut[2] as number)) / l11;
-  stepOut[0] = (z0 - l10 * (stepOut[1] as number) - l20 * (stepOut[2] as number)) / l00;
-  return stepOut;
+  const z0 = (rhs[0] as number) / l00;
+  const z1 = ((rhs[1] as number) - l10 * z0) / l11;
+  const z2 = ((rhs[2] as number) - l20 * z0 - l21 * z1) / l22;
+  out[2] = z2 / l22;
+  out[1] = (z1 - l21 * (out[2] as number)) / l11;
+  out[0] = (z0 - l10 * (out[1] as number) - l20 * (out[2] as number)) / l00;
+  return true;
 }

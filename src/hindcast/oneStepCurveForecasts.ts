@@ -1,6 +1,6 @@
 import { chiSquareUpperTail } from "../stats/chiSquareIndependence.js";
 import { readCurveInFold } from "./curveRuleForecasts.js";
-import { curveScratch, designIsRegular, fitLogisticCases, QUADRATIC_MIN_RARER, type CurveScratch } from "./fastResponseCurve.js";
+import { curveScratch, designIsRegular, fitLogisticCases, QUADRATIC_MIN_RARER, solveInformation, type CurveScratch } from "./fastResponseCurve.js";
 import type { HindcastDesign } from "./hindcastDesign.js";
 import type { PhaseRuleForecasts } from "./phaseRuleForecasts.js";
 
@@ -201,7 +201,7 @@ function oneStep(fit: WholeFit, size: 2 | 3, value: Float64Array, fire: Uint8Arr
       foldInformation[8] = (foldInformation[8] as number) - weight * v2 * v2;
     }
   }
-  if (!solveStep(size)) return Number.NaN;
+  if (!solveInformation(foldInformation, score, size, step)) return Number.NaN;
   const s0 = step[0] as number;
   const s1 = step[1] as number;
   const s2 = size === 3 ? (step[2] as number) : 0;
@@ -212,40 +212,6 @@ function oneStep(fit: WholeFit, size: 2 | 3, value: Float64Array, fire: Uint8Arr
   return fit.logLikelihood - removedLikelihood + 0.5 * ascent;
 }
 
-/** Solves foldInformation · step = score (2×2 or 3×3 symmetric positive definite, by Cholesky); false when singular. */
-function solveStep(size: 2 | 3): boolean {
-  const a = foldInformation[0] as number;
-  const b = foldInformation[1] as number;
-  const d = foldInformation[4] as number;
-  if (size === 2) {
-    const determinant = a * d - b * b;
-    if (!(determinant > 0) || !Number.isFinite(determinant)) return false;
-    step[0] = (d * (score[0] as number) - b * (score[1] as number)) / determinant;
-    step[1] = (a * (score[1] as number) - b * (score[0] as number)) / determinant;
-    return true;
-  }
-  const c = foldInformation[2] as number;
-  const e = foldInformation[5] as number;
-  const f = foldInformation[8] as number;
-  if (!(a > 0)) return false;
-  const l00 = Math.sqrt(a);
-  const l10 = b / l00;
-  const l20 = c / l00;
-  const l11sq = d - l10 * l10;
-  if (!(l11sq > 0)) return false;
-  const l11 = Math.sqrt(l11sq);
-  const l21 = (e - l20 * l10) / l11;
-  const l22sq = f - l20 * l20 - l21 * l21;
-  if (!(l22sq > 0) || !Number.isFinite(l22sq)) return false;
-  const l22 = Math.sqrt(l22sq);
-  const z0 = (score[0] as number) / l00;
-  const z1 = ((score[1] as number) - l10 * z0) / l11;
-  const z2 = ((score[2] as number) - l20 * z0 - l21 * z1) / l22;
-  step[2] = z2 / l22;
-  step[1] = (z1 - l21 * (step[2] as number)) / l11;
-  step[0] = (z0 - l10 * (step[1] as number) - l20 * (step[2] as number)) / l00;
-  return true;
-}
 
 const linearOut = new Float64Array(3);
 const quadraticOut = new Float64Array(3);
