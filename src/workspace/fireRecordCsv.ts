@@ -79,24 +79,29 @@ export function readEventsCsv(bytes: Uint8Array, problems: ProblemList, file: st
   const firstLine = new Map<string, number>();
   const repeats: string[] = [];
   let repeatCount = 0;
-  for (const row of table.rows) {
-    const site = row.field("site");
-    if (site === "") problems.add(row.line, "site must not be empty (found an empty cell)");
+  // The file may have a million rows: read them without an object per row.
+  const read = table.columnReader(["site", "year"]);
+  const fields: string[] = [];
+  for (let row = 0; row < table.rowCount; row++) {
+    read(row, fields);
+    const line = table.lineOf(row);
+    const site = fields[0] as string;
+    if (site === "") problems.add(line, "site must not be empty (found an empty cell)");
     else if (site.length > TEXT_LIMITS.siteId) {
-      problems.add(row.line, `site id is too long: at most ${TEXT_LIMITS.siteId} characters (found ${site.length})`);
+      problems.add(line, `site id is too long: at most ${TEXT_LIMITS.siteId} characters (found ${site.length})`);
       continue;
     }
-    const year = readInteger(row.field("year"), "year", row.line, problems, YEAR_RANGE);
+    const year = readInteger(fields[1] as string, "year", line, problems, YEAR_RANGE);
     if (site === "" || year === null) continue;
     const key = `${site}\u0000${year}`;
     const earlier = firstLine.get(key);
     if (earlier !== undefined) {
       repeatCount++;
-      if (repeats.length < 5) repeats.push(`${echoText(site)} ${year} (lines ${earlier} and ${row.line})`);
+      if (repeats.length < 5) repeats.push(`${echoText(site)} ${year} (lines ${earlier} and ${line})`);
       continue;
     }
-    firstLine.set(key, row.line);
-    events.push({ line: row.line, value: { site, year } });
+    firstLine.set(key, line);
+    events.push({ line, value: { site, year } });
   }
   const warnings: Warning[] = [];
   if (repeatCount > 0) {
