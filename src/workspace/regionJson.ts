@@ -260,6 +260,14 @@ const RENAMED_KEYS: ReadonlyMap<string, { readonly key: string; readonly hint: s
   ["methods.nearBoundaryMargin", { key: "nearBoundarySd", hint: "it is now a share of the index's standard deviation, e.g. 0.1" }],
 ]);
 
+/** How an expected JSON type is said ("must be an object", not "a object"). */
+const EXPECTED_WORDS: Readonly<Record<string, string>> = Object.freeze({
+  int: "an integer",
+  array: "a list (JSON array)",
+  object: "an object",
+  record: "an object",
+});
+
 /** A plain sentence for one problem found by the settings schema. */
 function issueMessage(issue: Exclude<v.SettingsIssue, { code: "unrecognized_keys" }>, found: unknown): string {
   if (typeof found === "number" && !Number.isFinite(found)) {
@@ -267,7 +275,7 @@ function issueMessage(issue: Exclude<v.SettingsIssue, { code: "unrecognized_keys
   }
   switch (issue.code) {
     case "invalid_type":
-      return found === undefined ? "is required" : `must be ${issue.expected === "int" ? "an integer" : `a ${issue.expected}`}`;
+      return found === undefined ? "is required" : `must be ${EXPECTED_WORDS[issue.expected] ?? `a ${issue.expected}`}`;
     case "too_small":
       if (issue.origin === "array") return `needs at least ${String(issue.minimum)} item(s)`;
       if (issue.origin === "string") return "must not be empty";

@@ -235,3 +235,19 @@ describe("parseRegionJson(text, file) limits", () => {
     ]);
   });
 });
+
+describe("parseRegionJson type words", () => {
+  it("says 'an object' and 'a list (JSON array)' for wrong types, never 'a object' or 'a array'", () => {
+    const problemsOf = (text: string): string[] => {
+      try {
+        parseRegionJson(text, "region.json");
+        return [];
+      } catch (error) {
+        return (error as InputError).problems.map((problem: InputProblem) => problem.message);
+      }
+    };
+    expect(problemsOf('{"name":"X","fireRecord":{"activity":"a.csv"},"indices":[]}')).toEqual(['"indices" must be an object (found [])']);
+    expect(problemsOf('{"name":"X","fireRecord":{"activity":"a.csv"},"indices":{"A":{"file":"i.csv","cuts":3}}}')).toEqual(['"indices.A.cuts" must be a list (JSON array) (found 3)']);
+    expect(problemsOf('{"name":"X","fireRecord":5,"indices":{}}').join(" ")).not.toMatch(/ a (object|array|record)\b/);
+  });
+});
