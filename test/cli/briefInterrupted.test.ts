@@ -134,7 +134,18 @@ describe("an interrupted `firephase brief` leaves no browser and no profile fold
       // and the handlers went away between the look at /proc and the signal: then the signal ends it).
       if (run.browserAtKill) expect(run.code === EXIT_CODES[signal] || endedBySignal, `run ${position}: interrupted with a browser running, code ${run.code}`).toBe(true);
     }
-    // The test means something only if several interrupts caught a browser running.
+    // The test means something only if several interrupts caught a browser running. On a loaded machine the
+    // seeded moments can all land before the browser exists (a slower start than the timed run): then more
+    // interrupts are sent, from half-way through the timed run, until three have caught one (at most ten more).
+    for (let extra = 0; runs.filter((run) => run.browserAtKill).length < 3 && extra < 10; extra += 1) {
+      const signal = SIGNALS[extra % SIGNALS.length] as (typeof SIGNALS)[number];
+      const tmp = join(work, `tmp-extra-${extra}`);
+      mkdirSync(tmp);
+      const run = await interrupted(tmp, join(work, `out-extra-${extra}.pdf`), Math.round((0.5 + 0.05 * extra) * fullRunMs), [signal]);
+      runs.push(run);
+      expect(await settled(tmp), `extra run ${extra}: ${signal}`).toEqual({ processes: [], profiles: [] });
+      if (run.browserAtKill) expect(run.code === EXIT_CODES[signal] || (run.code === null && run.signal === signal), `extra run ${extra}: code ${run.code}`).toBe(true);
+    }
     expect(runs.filter((run) => run.browserAtKill).length).toBeGreaterThanOrEqual(3);
   }, 300_000);
 
