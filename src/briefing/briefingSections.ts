@@ -169,7 +169,12 @@ export function hindcastExtras(skill: Skill, calibration: Calibration): Hindcast
       row("Brier skill score", bss),
       row("Ranked probability skill score", (rule) => (isFiniteNumber(rule.rpss) ? signed(rule.rpss, 2) : missing(rule.rpssReason ?? rule.reason))),
       row("ROC area", (rule) => (isFiniteNumber(rule.rocArea) ? formatDecimal(rule.rocArea, 2) : NOT_ENOUGH)),
-      row("Permutation p", (rule) => (isFiniteNumber(rule.skillPValue) ? formatPValue(rule.skillPValue) : missing(rule.skillPValueReason))),
+      // With the shuffles behind it: with 99 shuffles 0.01 is the smallest p there can be.
+      row("Permutation p (shuffles)", (rule) =>
+        isFiniteNumber(rule.skillPValue)
+          ? `${formatPValue(rule.skillPValue)}${isFiniteNumber(rule.permutations) && rule.permutations > 0 ? ` (${formatCount(rule.permutations)})` : ""}`
+          : missing(rule.skillPValueReason),
+      ),
       row("Verdict", (rule) => (rule.hasSkill ? "some skill" : "no skill shown")),
     ];
     const a = phaseSkill.brierSkillScore;

@@ -41,7 +41,7 @@ describe("hindcastExtras(skill, calibration)", () => {
     expect(extras.intervals).toEqual([]);
   });
   it("writes the permutation p, the intervals and both rules side by side when they exist", () => {
-    const curveRule: Skill = { ...skill, brierSkillScore: 0.14, rocArea: 0.77, skillPValue: 0.01, rpss: null, rpssReason: "the curve rule forecasts only high-fire years" };
+    const curveRule: Skill = { ...skill, brierSkillScore: 0.14, rocArea: 0.77, skillPValue: 0.01, permutations: 99, rpss: null, rpssReason: "the curve rule forecasts only high-fire years" };
     const full: Skill = {
       ...skill,
       brierSkillScore: 0.05,
@@ -61,6 +61,8 @@ describe("hindcastExtras(skill, calibration)", () => {
     expect(extras.intervalsNote).toContain("blocks of 5 years, 999 resamples");
     expect(extras.rules?.rows[0]).toEqual({ score: "Brier skill score", phase: "+0.05", curve: "+0.14" });
     expect(extras.rules?.rows[1]?.curve).toBe("not enough data (the curve rule forecasts only high-fire years)");
+    // The p with the shuffles behind it: 0.01 is the smallest p 99 shuffles can give.
+    expect(extras.rules?.rows[3]).toEqual({ score: "Permutation p (shuffles)", phase: "0.001 (999)", curve: "0.01 (99)" });
     expect(extras.rules?.sentence).toContain("the curve rule did better by its Brier skill score (+0.14 against +0.05)");
   });
   it("explains in one sentence when the hindcast scores a different number of high-fire years than the calibration", () => {
