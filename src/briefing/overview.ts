@@ -46,6 +46,13 @@ export interface OverviewRow {
   readonly chance: OverviewChance;
   /** Chance in an average year (`baseRate`). */
   readonly baseRate: OverviewChance;
+  /**
+   * How this season compares with an average year, as the region's briefing says it (`fireYear.comparedWithBase`:
+   * by the selection-aware interval when there is one, which allows for the rule's choice of index); null when unknown.
+   */
+  readonly compared: "higher" | "lower" | "not distinguishable" | null;
+  /** The selection-aware 95% interval of this season's chance (`fireYear.selectionInterval`), null when none. */
+  readonly selection: OverviewChance;
   /** Whether the hindcast shows skill (`hindcast.hasSkill`), null when unknown. */
   readonly hasSkill: boolean | null;
   /** The verdict in words ({@link OverviewSkill}), from the outlook's structured fields; null when unknown. */
@@ -125,6 +132,8 @@ export function overviewRowFromOutlook(outlookJson: unknown, folder: string, pdf
     issued: typeof outlook["issued"] === "string" ? outlook["issued"] : null,
     chance: chanceOf(fireYear),
     baseRate: chanceOf(outlook["baseRate"]),
+    compared: fireYear["comparedWithBase"] === "higher" || fireYear["comparedWithBase"] === "lower" || fireYear["comparedWithBase"] === "not distinguishable" ? fireYear["comparedWithBase"] : null,
+    selection: fireYear["selectionInterval"] === null || fireYear["selectionInterval"] === undefined ? { estimate: null, lower: null, upper: null } : { ...chanceOf(fireYear["selectionInterval"]), estimate: null },
     hasSkill: typeof hindcast["hasSkill"] === "boolean" ? hindcast["hasSkill"] : null,
     skill: overviewSkill(outlookJson),
     verdict: typeof hindcast["verdict"] === "string" ? hindcast["verdict"] : "",
@@ -155,6 +164,8 @@ export function failedOverviewRow(folder: string, problems: readonly string[]): 
     issued: null,
     chance: none,
     baseRate: none,
+    compared: null,
+    selection: { estimate: null, lower: null, upper: null },
     hasSkill: null,
     skill: null,
     verdict: "",
@@ -202,6 +213,9 @@ export const OVERVIEW_CSV_COLUMNS: readonly string[] = Object.freeze([
   "base_rate",
   "base_rate_lower",
   "base_rate_upper",
+  "compared_with_average",
+  "selection_lower",
+  "selection_upper",
   "has_skill",
   "skill",
   "skill_verdict",
@@ -252,6 +266,9 @@ export function overviewCsv(rows: readonly OverviewRow[]): string {
         row.baseRate.estimate,
         row.baseRate.lower,
         row.baseRate.upper,
+        row.compared,
+        row.selection.lower,
+        row.selection.upper,
         row.hasSkill,
         row.skill,
         row.verdict,
@@ -437,6 +454,28 @@ function chanceCell(chance: OverviewChance): string {
  * @example
  * overviewHtml(rows, { cautions, madeAt: "2027-03-10T08:00:00Z", toolVersion: "0.1.0", fontCss: "" }).startsWith("<!DOCTYPE html>"); // => true
  */
+/**
+ * The comparison with the average year in a few words, as the region's briefing makes it: "higher" or "lower"
+ * only when the intervals do not overlap — the interval that allows for the rule's choice of index when the
+ * outlook has one — else "not clearly different", with that interval when it is the reason.
+ */
+export function comparedWords(row: OverviewRow): string {
+  const selection =
+    row.selection.lower !== null && row.selection.upper !== null
+      ? ` (allowing for the choice of index: ${formatPercentRange(row.selection.lower, row.selection.upper)})`
+      : "";
+  switch (row.compared) {
+    case "higher":
+      return "Higher";
+    case "lower":
+      return "Lower";
+    case "not distinguishable":
+      return `Not clearly different${selection}`;
+    default:
+      return "Not known";
+  }
+}
+
 export function overviewHtml(rows: readonly OverviewRow[], options: OverviewPageOptions): string {
   const sorted = sortOverviewRows(rows);
   const briefed = sorted.filter((row) => row.status === "briefed");
@@ -455,6 +494,7 @@ export function overviewHtml(rows: readonly OverviewRow[], options: OverviewPage
       (row, position) =>
         `<tr><td class="num">${position + 1}</td><td><div class="strong">${escapeHtml(row.region)}</div><div class="muted small">${escapeHtml(row.folder)}</div>${rowDates(row)}</td>` +
         `${chanceCell(row.chance)}${chanceCell(row.baseRate)}` +
+        `<td class="small">${escapeHtml(comparedWords(row))}</td>` +
         `<td class="skill">${escapeHtml(row.skill ?? "Not known")}</td>` +
         `<td class="small">${escapeHtml(row.basis)}</td></tr>`,
     )
@@ -499,7 +539,7 @@ tr { break-inside: avoid; }
 <p class="sub">${escapeHtml(counts)} · Made ${escapeHtml(formatMoment(options.madeAt))} with firephase ${escapeHtml(options.toolVersion)}. Sorted by this season's odds, highest first; each region's briefing explains its odds and its hindcast.</p>
 ${notesBox}
 <table>
-<thead><tr><th class="num">#</th><th>Region</th><th class="num">This season</th><th class="num">95% interval</th><th class="num">Average year</th><th class="num">95% interval</th><th>Hindcast skill</th><th>Odds read from</th></tr></thead>
+<thead><tr><th class="num">#</th><th>Region</th><th class="num">This season</th><th class="num">95% interval</th><th class="num">Average year</th><th class="num">95% interval</th><th>Against the average year</th><th>Hindcast skill</th><th>Odds read from</th></tr></thead>
 <tbody>
 ${body}
 </tbody></table>

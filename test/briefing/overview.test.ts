@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import {
   coreCautions,
   failedOverviewRow,
+  comparedWords,
   overviewCsv,
   overviewDateline,
   overviewDateNotes,
@@ -22,7 +23,14 @@ function outlookJson(name: string, estimate: number | null, upper: number | null
     region: { name },
     baseRate: { estimate: 0.1, lower: 0.07, upper: 0.15 },
     current: [{ index: "ENSO", value: 1.2, label: "warm" }],
-    fireYear: { estimate, lower: estimate === null ? null : estimate / 2, upper, basis: `the years like ${name}` },
+    fireYear: {
+      estimate,
+      lower: estimate === null ? null : estimate / 2,
+      upper,
+      basis: `the years like ${name}`,
+      comparedWithBase: "not distinguishable",
+      selectionInterval: estimate === null ? null : { lower: estimate / 4, upper: 0.6, resamples: 999, blockYears: 5, level: 0.95, seed: 1, method: "…" },
+    },
     hindcast: { hasSkill, brierSkillScore: hasSkill ? 0.06 : -0.01, skillPValue: hasSkill ? 0.002 : 0.6, verdict: `Verdict of ${name}. More words.` },
   };
 }
@@ -40,6 +48,8 @@ describe("overviewRowFromOutlook(outlook JSON, folder, pdf)", () => {
       issued: "2027-03-10",
       chance: { estimate: 0.35, lower: 0.175, upper: 0.5 },
       baseRate: { estimate: 0.1, lower: 0.07, upper: 0.15 },
+      compared: "not distinguishable",
+      selection: { estimate: null, lower: 0.0875, upper: 0.6 },
       hasSkill: true,
       skill: "Some skill",
       verdict: "Verdict of North. More words.",
@@ -47,6 +57,16 @@ describe("overviewRowFromOutlook(outlook JSON, folder, pdf)", () => {
       pdf: "/out/north.pdf",
       problem: null,
     });
+  });
+});
+
+describe("comparedWords(row): the comparison with the average year as the briefing makes it", () => {
+  it("says 'Not clearly different' with the interval that allows for the choice of index, and Higher/Lower only as the outlook says", () => {
+    const row = overviewRowFromOutlook(outlookJson("North", 0.22, 0.32), "north", null);
+    expect(comparedWords(row)).toBe("Not clearly different (allowing for the choice of index: 6\u201360%)");
+    expect(comparedWords({ ...row, compared: "higher" })).toBe("Higher");
+    expect(comparedWords({ ...row, compared: "lower" })).toBe("Lower");
+    expect(comparedWords({ ...row, compared: null })).toBe("Not known");
   });
 });
 
@@ -95,12 +115,12 @@ describe("overviewCsv(rows)", () => {
     ];
     const lines = overviewCsv(rows).split("\n");
     expect(lines[0]).toBe(
-      "rank,region,folder,status,season,issued,chance,chance_lower,chance_upper,base_rate,base_rate_lower,base_rate_upper,has_skill,skill,skill_verdict,basis,pdf,problem",
+      "rank,region,folder,status,season,issued,chance,chance_lower,chance_upper,base_rate,base_rate_lower,base_rate_upper,compared_with_average,selection_lower,selection_upper,has_skill,skill,skill_verdict,basis,pdf,problem",
     );
     expect(lines[1]).toBe(
-      `1,"'=HYPERLINK(""x"")","ridge, east",briefed,2027,2027-03-10,0.123456789,0.0617283945,0.2,0.1,0.07,0.15,no,No skill,"Verdict of =HYPERLINK(""x""). More words.","the years like =HYPERLINK(""x"")",,`,
+      `1,"'=HYPERLINK(""x"")","ridge, east",briefed,2027,2027-03-10,0.123456789,0.0617283945,0.2,0.1,0.07,0.15,not distinguishable,0.03086419725,0.6,no,No skill,"Verdict of =HYPERLINK(""x""). More words.","the years like =HYPERLINK(""x"")",,`,
     );
-    expect(lines[2]).toBe(`,bad,bad,failed,,,,,,,,,,,,,,"bad/region.json:3: name is ""-1"""`);
+    expect(lines[2]).toBe(`,bad,bad,failed,,,,,,,,,,,,,,,,,"bad/region.json:3: name is ""-1"""`);
     expect(lines[3]).toBe("");
   });
 });
