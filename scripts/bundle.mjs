@@ -49,15 +49,20 @@ const files = [...result.outputFiles].sort((a, b) => Number(isEntry(a.path)) - N
 for (const file of files) {
   const temporary = join(dirname(file.path), `.${basename(file.path)}.${process.pid}.tmp`);
   writeFileSync(temporary, file.contents);
+  if (basename(file.path) === "main.js") chmodSync(temporary, 0o755); // executable from the moment it is there
   renameSync(temporary, file.path);
 }
-chmodSync(join(outdir, "main.js"), 0o755);
 // Chunks of earlier builds: removed by a plain build; kept (an hour) when tests rebuild while others run.
 const current = new Set(files.map((file) => basename(file.path)));
 const keepRecent = process.env.FIREPHASE_BUNDLE_KEEP_RECENT === "1";
 for (const name of readdirSync(outdir)) {
-  if (current.has(name)) continue;
+  // Another build's temporary files (between their write and rename) are never touched.
+  if (current.has(name) || /^\..*\.tmp$/.test(name)) continue;
   const path = join(outdir, name);
-  if (keepRecent && Date.now() - statSync(path).mtimeMs < 3_600_000) continue;
-  rmSync(path, { force: true });
+  try {
+    if (keepRecent && Date.now() - statSync(path).mtimeMs < 3_600_000) continue;
+    rmSync(path, { force: true, recursive: true });
+  } catch {
+    // removed meanwhile by another build
+  }
 }

@@ -60,17 +60,23 @@ export function compileTemplates(folder: string, precompiledFile: string = PRECO
   if (cached !== undefined) return cached;
   const sources = templateSources(folder);
   const precompiled = precompiledFor(templatesDigest(sources), precompiledFile);
-  let template: (data: unknown) => string;
+  let template: ((data: unknown) => string) | null = null;
   if (precompiled !== null) {
-    const environment = (requireFromHere("handlebars/runtime") as { default: HandlebarsEnvironment }).default.create();
-    for (const [name, spec] of Object.entries(precompiled.partials)) environment.registerPartial(name, environment.template(spec));
-    template = environment.template(precompiled.main);
-  } else {
+    try {
+      const environment = (requireFromHere("handlebars/runtime") as { default: HandlebarsEnvironment }).default.create();
+      for (const [name, spec] of Object.entries(precompiled.partials)) environment.registerPartial(name, environment.template(spec));
+      template = environment.template(precompiled.main);
+    } catch {
+      template = null; // e.g. a handlebars runtime of another compiler revision than the build's: compile here
+    }
+  }
+  if (template === null) {
     const environment = (requireFromHere("handlebars") as HandlebarsEnvironment).create();
     for (const [name, text] of sources.partials) environment.registerPartial(name, text);
     template = environment.compile(sources.main, { ...TEMPLATE_OPTIONS }); // a copy: handlebars adds to its options
   }
-  const compiled: CompiledBriefing = (data) => template(data);
+  const ready = template;
+  const compiled: CompiledBriefing = (data) => ready(data);
   compiledByFolder.set(key, compiled);
   return compiled;
 }

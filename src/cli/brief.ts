@@ -281,6 +281,10 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       // most 50 ms, and not at all after a failed launch), so it starts up on its own during the computation.
       await Promise.race([aboutToLaunch.then(() => pause(5)).then(() => pause(5)), launched.then(() => undefined), pause(50)]).catch(() => undefined);
       mark("browser process started");
+      // A launch that failed meanwhile ends the run now, as above.
+      await Promise.race([launched.then(() => undefined), new Promise<void>((resolveNow) => setImmediate(resolveNow))]).catch((error: unknown) => {
+        throw error instanceof BrowserNotFoundError ? new UsageError(error.message) : error;
+      });
     }
     const calibration = runCalibration(workspace, { onProgress: progressReporter() });
     mark("calibrated");

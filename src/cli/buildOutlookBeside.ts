@@ -12,32 +12,25 @@ const WORKER_URL = new URL("./hindcastWorker.js", import.meta.url);
 /** Running from the compiled JavaScript (not from the TypeScript sources under a test runner). */
 const COMPILED = import.meta.url.endsWith(".js");
 
-/** A hindcast computed in a worker thread; null when no worker could be used (the caller computes it here). */
-function hindcastInWorker(input: ReturnType<typeof outlookHindcastInput>): Promise<Skill | null> {
-  return new Promise((resolve, reject) => {
-    let worker: Worker;
+/**
+ * A hindcast computed in a worker thread; null when no worker could be used or the worker's computation failed
+ * (the caller then computes it here, which reproduces any error with its own class and stack).
+ */
+function hindcastInWorker(input: ReturnType<typeof outlookHindcastInput>): { readonly result: Promise<Skill | null>; readonly stop: () => void } {
+  let worker: Worker | null = null;
+  const result = new Promise<Skill | null>((resolve) => {
     try {
       worker = new Worker(WORKER_URL, { workerData: input });
     } catch {
       resolve(null);
       return;
     }
-    let settled = false;
-    worker.once("message", (message: FromHindcastWorker) => {
-      settled = true;
-      if (message.ok) resolve(message.skill);
-      else reject(new Error(message.message));
-    });
+    worker.once("message", (message: FromHindcastWorker) => resolve(message.ok ? message.skill : null));
     // A worker that fails to start or dies is not an error of the computation: compute it here instead.
-    worker.once("error", () => {
-      if (!settled) resolve(null);
-      settled = true;
-    });
-    worker.once("exit", () => {
-      if (!settled) resolve(null);
-      settled = true;
-    });
+    worker.once("error", () => resolve(null));
+    worker.once("exit", () => resolve(null));
   });
+  return { result, stop: () => void (worker as Worker | null)?.terminate() };
 }
 
 /**
@@ -58,11 +51,20 @@ export async function buildOutlookBeside(
 ): Promise<Outlook> {
   const input = outlookHindcastInput(workspace, calibration, request);
   const phaseInput = { ...input, curveRule: false };
-  const pending = COMPILED && isMainThread ? hindcastInWorker(phaseInput).then((skill) => (mark("phase rule's hindcast (worker thread)"), skill)) : Promise.resolve(null);
-  const rest = buildOutlookWithoutHindcast(workspace, calibration, request);
-  mark("outlook but its hindcast (selection-aware interval)");
-  const curveRule = input.curveRule === false ? null : runCurveRuleHindcast(input);
-  mark("curve rule's hindcast");
-  const phaseRule = (await pending) ?? runHindcast(phaseInput);
+  const worker = COMPILED && isMainThread ? hindcastInWorker(phaseInput) : null;
+  let rest: ReturnType<typeof buildOutlookWithoutHindcast>;
+  let curveRule: Skill | null;
+  try {
+    rest = buildOutlookWithoutHindcast(workspace, calibration, request);
+    mark("outlook but its hindcast (selection-aware interval)");
+    curveRule = input.curveRule === false ? null : runCurveRuleHindcast(input);
+    mark("curve rule's hindcast");
+  } catch (error) {
+    worker?.stop(); // this run has failed: its hindcast is not waited for
+    throw error;
+  }
+  const fromWorker = worker === null ? null : await worker.result;
+  if (worker !== null) mark(`phase rule's hindcast ${fromWorker === null ? "(worker failed: computed here)" : "received from its worker thread"}`);
+  const phaseRule = fromWorker ?? runHindcast(phaseInput);
   return attachHindcast(rest, curveRule === null ? phaseRule : withCurveRule(phaseRule, curveRule));
 }

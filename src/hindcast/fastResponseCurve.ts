@@ -257,10 +257,10 @@ export function fitLogisticCases(x: Float64Array, y: Uint8Array, m: number, size
 /**
  * The design checks readFastResponseCurve makes before its plain maximum-likelihood path, on the first `m` cases:
  * the relative Gram–Schmidt remainder of the last column of [1, x, x²] (its first `columns` columns) is at
- * least 1e-6, i.e. the design is not nearly singular.
+ * least 1e-6 (times `margin`), i.e. the design is not nearly singular.
  */
-export function designIsRegular(x: Float64Array, m: number, columns: 2 | 3): boolean {
-  return relativeRemainder(x, m, columns) >= RANK_MARGIN;
+export function designIsRegular(x: Float64Array, m: number, columns: 2 | 3, margin = 1): boolean {
+  return relativeRemainder(x, m, columns) >= margin * RANK_MARGIN;
 }
 
 /** Below this largest step the iteration is in Newton's quadratic convergence region: no step halving needed. */

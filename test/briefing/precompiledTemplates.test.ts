@@ -50,3 +50,14 @@ describe("precompiled briefing templates (build time) and compileTemplates", () 
     expect(templatesDigest({ main: `${sources.main} `, partials: sources.partials })).not.toBe(digest);
   });
 });
+
+describe("precompiled templates the handlebars runtime refuses", () => {
+  it("(another compiler revision than the runtime's) are not used: the templates are compiled here and render the same briefing", () => {
+    const file = join(work, "other-revision.cjs");
+    const digest = templatesDigest(templateSources(TEMPLATES_DIR));
+    writeFileSync(file, `module.exports = { digest: ${JSON.stringify(digest)}, main: { compiler: [1, "< 1.0.0"], main: function () { return "stale"; } }, partials: {} };\n`);
+    const rendered = compileTemplates(TEMPLATES_DIR, file)(data);
+    expect(rendered).not.toBe("stale");
+    expect(rendered).toBe(compileTemplates(TEMPLATES_DIR, join(work, "none.cjs"))(data));
+  });
+});

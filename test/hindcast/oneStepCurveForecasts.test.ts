@@ -140,3 +140,27 @@ describe("oneStepCurveForecasts (one-step case deletion, Pregibon 1981)", () => 
     expect(oneStep[separatedFold]).toBeCloseTo(exact[separatedFold] as number, 9);
   });
 });
+
+describe("oneStepCurveForecasts on an index far from zero (a nearly singular quadratic design)", () => {
+  it("refits every fold exactly when the whole-record design is not regular with a wide margin (pressure-like values 101325 ± 100)", () => {
+    const random = createRandom(11);
+    const years = Array.from({ length: 60 }, (_, i) => 1800 + i);
+    const values = years.map(() => Math.round(101325 + (random.nextFloat() - 0.5) * 400));
+    const fire = Uint8Array.from(values, (value) => (random.nextFloat() < expit(-2 + (value - 101325) / 60) ? 1 : 0));
+    const category = Uint8Array.from(fire, (outcome) => outcome * 2);
+    const design = hindcastDesign({
+      years,
+      indexValues: new Map([["P", new Map(years.map((year, i) => [year, values[i] as number]))]]),
+      indexSettings: [cutsIndex("P", [101250, 101400])],
+      indices: ["P"],
+      exclusion: 2,
+    });
+    const settings = { jointMinYears: 10, jointMaxQ: 1 };
+    const phase = phaseRuleForecasts(design, fire, category, settings);
+    const scratch = oneStepScratch(design);
+    expect(scratch.regular[0]).toBe(0);
+    const exact = curveRuleForecasts(design, fire, phase).probability;
+    const oneStep = oneStepCurveForecasts(design, fire, phase, scratch);
+    for (let fold = 0; fold < design.folds; fold += 1) expect(oneStep[fold]).toBeCloseTo(exact[fold] as number, 9);
+  });
+});
