@@ -50,7 +50,7 @@ describe("contingencyTableScores({ hits, misses, falseAlarms, correctNegatives }
   });
 
   it("hand-counted table H = 2, M = 2, F = 1, C = 2 gives exact fractions", () => {
-    // The small table of the xskillscore package's contingency-score tests (xarray-contrib/xskillscore, test_contingency.py): threat score 2/5; others by hand.
+    // The small table of the xskillscore package's own contingency-score tests (from memory, M): threat score 2/5; others by hand.
     const scores = contingencyTableScores({ hits: 2, misses: 2, falseAlarms: 1, correctNegatives: 2 });
     expect(scores.threatScore).toBeCloseTo(2 / 5, 15);
     expect(scores.hitRate).toBeCloseTo(2 / 4, 15);
