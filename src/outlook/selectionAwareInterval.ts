@@ -1,10 +1,9 @@
-import { classifyPhase, phaseDefinition } from "../climate/phaseDefinition.js";
-import type { IndexValues, TrainingSet } from "../calibrate/buildTrainingSet.js";
-import { forecastCell } from "../calibrate/forecastCell.js";
-import { rankIndicesByAssociation } from "../calibrate/rankIndicesByAssociation.js";
+import { classifyPhase } from "../climate/phaseDefinition.js";
+import type { IndexValues } from "../calibrate/buildTrainingSet.js";
+import { phaseTableChiSquare } from "../calibrate/rankIndicesByAssociation.js";
+import { benjaminiHochberg } from "../stats/benjaminiHochberg.js";
 import { curveScratch, readFastResponseCurve, type CurveScratch } from "../hindcast/fastResponseCurve.js";
-import type { ActivityCategories, ActivityCategory } from "../record/types.js";
-import type { PhaseDefinition } from "../climate/types.js";
+import type { ActivityCategories } from "../record/types.js";
 import { createRandom } from "../stats/createRandom.js";
 import { movingBlockBootstrapIndices } from "../stats/movingBlockBootstrap.js";
 import { quantileSorted } from "../stats/quantileSorted.js";
@@ -80,13 +79,11 @@ export function selectionAwareInterval(input: SelectionIntervalInput): Selection
   }
   const blockYears = Math.max(1, Math.min(Math.round(input.blockYears), n));
   const random = createRandom(input.seed);
-  const names = input.indexSettings.map((settings) => settings.name);
   const estimates: number[] = [];
-  const scratch = new Map<string, CurveScratch>();
   const prepared = prepare(input);
   for (let resample = 0; resample < input.resamples; resample += 1) {
     const positions = movingBlockBootstrapIndices(n, blockYears, random);
-    estimates.push(oddsOnResample(input, prepared, positions, names, scratch));
+    estimates.push(oddsOnResample(input, prepared, positions));
   }
   estimates.sort((a, b) => a - b);
   const tail = (1 - level) / 2;
@@ -136,106 +133,198 @@ export function selectionNote(
   return null;
 }
 
-/** The calibration records by position (0 … n − 1 in `years`), prepared once for all resamples. */
+/**
+ * The calibration records by position (0 … n − 1 in `years`) and the scratch space of every resample,
+ * prepared once: typed arrays in the order of the index settings, so a resample allocates almost nothing.
+ */
 interface Prepared {
+  readonly n: number;
   readonly fire: Uint8Array;
-  readonly category: readonly (ActivityCategory | undefined)[];
-  /** Index values by position, NaN where missing, for the indices of the settings. */
-  readonly values: ReadonlyMap<string, Float64Array>;
+  readonly names: readonly string[];
+  /** Index values by position, NaN where missing, in the order of the settings. */
+  readonly values: readonly Float64Array[];
+  /** Fixed cuts of an index with the "cuts" rule; null for terciles (recomputed on each resample). */
+  readonly fixedCuts: readonly (readonly number[] | null)[];
+  /** Number of phases (labels) of each index. */
+  readonly phaseCount: readonly number[];
+  /** This season's value of each index (read only where `hasCurrent` is 1). */
+  readonly current: Float64Array;
+  readonly hasCurrent: Uint8Array;
+  /** Name order of the indices (ties of p are broken by name, as rankIndicesByAssociation does). */
+  readonly nameOrder: Int32Array;
+  /** Phase of each resampled position per index (−1 without a value), and this season's phase. */
+  readonly phase: readonly Int8Array[];
+  readonly currentPhase: Int32Array;
+  readonly drawn: Float64Array;
+  readonly yearsPerPhase: Int32Array;
+  readonly firePerPhase: Int32Array;
+  readonly pValues: number[];
+  readonly order: number[];
+  readonly curve: (CurveScratch | null)[];
 }
 
 function prepare(input: SelectionIntervalInput): Prepared {
   const n = input.years.length;
   const fire = new Uint8Array(n);
-  const category: (ActivityCategory | undefined)[] = [];
   input.years.forEach((year, position) => {
     fire[position] = input.isFireYear.has(year) ? 1 : 0;
-    category.push(input.categories.byYear.get(year));
   });
-  const values = new Map<string, Float64Array>();
-  for (const settings of input.indexSettings) {
+  const names = input.indexSettings.map((settings) => settings.name);
+  const values = input.indexSettings.map((settings) => {
     const byYear = input.indexValues.get(settings.name);
-    values.set(
-      settings.name,
-      Float64Array.from(input.years, (year) => byYear?.get(year) ?? Number.NaN),
-    );
-  }
-  return { fire, category, values };
+    return Float64Array.from(input.years, (year) => byYear?.get(year) ?? Number.NaN);
+  });
+  const byName = [...names.keys()].sort((a, b) => ((names[a] as string) < (names[b] as string) ? -1 : (names[a] as string) > (names[b] as string) ? 1 : 0));
+  const nameOrder = new Int32Array(names.length);
+  byName.forEach((k, rank) => {
+    nameOrder[k] = rank;
+  });
+  const phaseCount = input.indexSettings.map((settings) => settings.phases.labels.length);
+  return {
+    n,
+    fire,
+    names,
+    values,
+    fixedCuts: input.indexSettings.map((settings) => (settings.phases.kind === "cuts" ? settings.phases.cuts : null)),
+    phaseCount,
+    current: Float64Array.from(names, (name) => input.current.get(name) ?? Number.NaN),
+    hasCurrent: Uint8Array.from(names, (name) => (input.current.has(name) ? 1 : 0)),
+    nameOrder,
+    phase: names.map(() => new Int8Array(n)),
+    currentPhase: new Int32Array(names.length),
+    drawn: new Float64Array(n),
+    yearsPerPhase: new Int32Array(Math.max(1, ...phaseCount)),
+    firePerPhase: new Int32Array(Math.max(1, ...phaseCount)),
+    pValues: names.map(() => Number.NaN),
+    order: names.map((_, k) => k),
+    curve: names.map(() => null),
+  };
 }
 
-function oddsOnResample(
-  input: SelectionIntervalInput,
-  prepared: Prepared,
-  positions: readonly number[],
-  names: readonly string[],
-  scratch: Map<string, CurveScratch>,
-): number {
-  // Each drawn year gets its own number (its position in the resample), so a year drawn twice counts twice.
-  const n = positions.length;
-  const pseudoYears = positions.map((_, i) => i);
-  const isFireYear = new Set<number>();
-  const categories = new Map<number, ActivityCategory>();
-  for (let i = 0; i < n; i += 1) {
-    const position = positions[i] as number;
-    if (prepared.fire[position] === 1) isFireYear.add(i);
-    const category = prepared.category[position];
-    if (category !== undefined) categories.set(i, category);
-  }
-  // The training set of the resample: phase cuts (and phases) redone from the resampled values; the
-  // high-fire years and categories carried over from the whole period (the event definition stays fixed).
-  const definitions = new Map<string, PhaseDefinition>();
-  const phaseOf = new Map<string, Map<number, number>>();
-  for (const settings of input.indexSettings) {
-    const byPosition = prepared.values.get(settings.name) as Float64Array;
-    const drawn: number[] = [];
-    const drawnYears: number[] = [];
+/**
+ * The rule's odds on one resample: the arithmetic of buildTrainingSet (phase cuts by phaseDefinition, phases by
+ * classifyPhase), rankIndicesByAssociation (phaseTableChiSquare, benjaminiHochberg, p ascending with NaN last and
+ * ties by name), forecastCell (joint, single, climatology) and curveForecast, on counts in typed arrays instead of
+ * maps of pseudo-years. The test beside it rebuilds every resample from those functions and gets the same odds.
+ */
+function oddsOnResample(input: SelectionIntervalInput, prepared: Prepared, positions: readonly number[]): number {
+  // Each drawn year is its own pseudo-year (its place i in the resample), so a year drawn twice counts twice.
+  const { n, fire, values, fixedCuts, phaseCount, current, phase, currentPhase, drawn, yearsPerPhase, firePerPhase, pValues, order } = prepared;
+  const K = values.length;
+  let fireTotal = 0;
+  for (let i = 0; i < n; i += 1) fireTotal += fire[positions[i] as number] as number;
+  for (let k = 0; k < K; k += 1) {
+    const byPosition = values[k] as Float64Array;
+    const phases = phase[k] as Int8Array;
+    let m = 0;
     for (let i = 0; i < n; i += 1) {
       const value = byPosition[positions[i] as number] as number;
       if (Number.isNaN(value)) continue;
-      drawn.push(value);
-      drawnYears.push(i);
+      drawn[m] = value;
+      m += 1;
     }
-    const definition = phaseDefinition(settings, drawn);
-    definitions.set(settings.name, definition);
-    const phases = new Map<number, number>();
-    drawnYears.forEach((year, k) => phases.set(year, classifyPhase(drawn[k] as number, definition.cuts)));
-    phaseOf.set(settings.name, phases);
+    const cuts = fixedCuts[k] ?? tercileCuts(drawn.subarray(0, m));
+    const count = phaseCount[k] as number;
+    yearsPerPhase.fill(0, 0, count);
+    firePerPhase.fill(0, 0, count);
+    for (let i = 0; i < n; i += 1) {
+      const position = positions[i] as number;
+      const value = byPosition[position] as number;
+      if (Number.isNaN(value)) {
+        phases[i] = -1;
+        continue;
+      }
+      const p = classifyPhase(value, cuts);
+      phases[i] = p;
+      if (p >= count) continue; // phaseCounts keeps only the phases that have a label
+      yearsPerPhase[p] = (yearsPerPhase[p] as number) + 1;
+      firePerPhase[p] = (firePerPhase[p] as number) + (fire[position] as number);
+    }
+    currentPhase[k] = prepared.hasCurrent[k] === 1 ? classifyPhase(current[k] as number, cuts) : -1;
+    pValues[k] = phaseTableChiSquare(yearsPerPhase, firePerPhase, 0, count).pValue;
   }
-  const fireYears = pseudoYears.filter((year) => isFireYear.has(year));
-  const training: TrainingSet = {
-    years: pseudoYears,
-    fireYears: { top: input.top, measure: input.measure, threshold: null, years: fireYears, realisedShare: fireYears.length / pseudoYears.length, calibrationYears: pseudoYears.length },
-    isFireYear,
-    categories: { ...input.categories, byYear: categories },
-    definitions,
-    phaseOf,
+  const qValues = benjaminiHochberg(pValues);
+  for (let k = 0; k < K; k += 1) order[k] = k;
+  order.sort((a, b) => {
+    const pa = Number.isNaN(pValues[a] as number) ? Infinity : (pValues[a] as number);
+    const pb = Number.isNaN(pValues[b] as number) ? Infinity : (pValues[b] as number);
+    if (pa !== pb) return pa - pb;
+    return (prepared.nameOrder[a] as number) - (prepared.nameOrder[b] as number);
+  });
+  // forecastCell: the joint cell of the two strongest indices with a value this season when both are clear and
+  // it holds jointMinYears, else the strongest index's single cell with a year in it, else every year.
+  let first = -1;
+  let second = -1;
+  for (const k of order) {
+    if (currentPhase[k] === -1) continue;
+    if (first < 0) first = k;
+    else if (second < 0) second = k;
+  }
+  const clear = (k: number): boolean => {
+    const q = qValues[k] as number;
+    return Number.isFinite(q) && q <= input.jointMaxQ;
   };
-  const phases = new Map<string, number>();
-  for (const [name, value] of input.current) {
-    const definition = training.definitions.get(name);
-    if (definition !== undefined) phases.set(name, classifyPhase(value, definition.cuts));
+  let chosen = -1;
+  let cellYears = 0;
+  let cellFire = 0;
+  if (first >= 0 && second >= 0 && clear(first) && clear(second)) {
+    const phasesA = phase[first] as Int8Array;
+    const phasesB = phase[second] as Int8Array;
+    const wantA = currentPhase[first] as number;
+    const wantB = currentPhase[second] as number;
+    for (let i = 0; i < n; i += 1) {
+      if (phasesA[i] !== wantA || phasesB[i] !== wantB) continue;
+      cellYears += 1;
+      cellFire += fire[positions[i] as number] as number;
+    }
+    if (cellYears >= input.jointMinYears) chosen = first;
   }
-  const ranking = rankIndicesByAssociation(training, names);
-  const cell = forecastCell(training, phases, ranking, input.jointMinYears, input.jointMaxQ);
-  const phaseOdds = cell.years.length === 0 ? fireYears.length / pseudoYears.length : cell.fireYears / cell.years.length;
-  if (input.response === "phase") return phaseOdds;
+  if (chosen < 0) {
+    for (const k of order) {
+      const want = currentPhase[k] as number;
+      if (want === -1) continue;
+      const phases = phase[k] as Int8Array;
+      cellYears = 0;
+      cellFire = 0;
+      for (let i = 0; i < n; i += 1) {
+        if (phases[i] !== want) continue;
+        cellYears += 1;
+        cellFire += fire[positions[i] as number] as number;
+      }
+      if (cellYears > 0) {
+        chosen = k;
+        break;
+      }
+    }
+  }
+  if (chosen < 0) {
+    cellYears = n;
+    cellFire = fireTotal;
+  }
+  const phaseOdds = cellYears === 0 ? fireTotal / n : cellFire / cellYears;
+  if (input.response === "phase" || chosen < 0) return phaseOdds;
   // The curve rule (curveForecast): the cell's first index, its curve fitted over the resample's years with a
   // value, read at this season's value. readFastResponseCurve reproduces fitResponseCurve + readResponseCurve
-  // (the hindcast's tests check it against curveForecast) without allocating per fit.
-  const index = cell.basis === "climatology" ? undefined : cell.indices[0];
-  const value = index === undefined ? undefined : input.current.get(index);
-  const byPosition = index === undefined ? undefined : prepared.values.get(index);
-  if (index === undefined || value === undefined || byPosition === undefined) return phaseOdds;
-  const buffers = scratch.get(index) ?? curveScratch(n);
-  scratch.set(index, buffers);
+  // (the hindcast's tests check it against curveForecast) without allocating per fit; each index keeps its own
+  // scratch (and so its own warm starts) from resample to resample.
+  const buffers = prepared.curve[chosen] ?? curveScratch(n);
+  prepared.curve[chosen] = buffers;
+  const byPosition = values[chosen] as Float64Array;
   let m = 0;
   for (let i = 0; i < n; i += 1) {
-    const x = byPosition[positions[i] as number] as number;
+    const position = positions[i] as number;
+    const x = byPosition[position] as number;
     if (Number.isNaN(x)) continue;
     buffers.x[m] = x;
-    buffers.y[m] = isFireYear.has(i) ? 1 : 0;
+    buffers.y[m] = fire[position] as number;
     m += 1;
   }
-  const estimate = readFastResponseCurve(buffers, m, value);
+  const estimate = readFastResponseCurve(buffers, m, current[chosen] as number);
   return Number.isNaN(estimate) ? phaseOdds : estimate;
+}
+
+/** The tercile cuts of phaseDefinition (type-7 quantiles at 1/3 and 2/3) of the drawn values. */
+function tercileCuts(drawn: Float64Array): number[] {
+  const sorted = drawn.slice().sort() as unknown as readonly number[];
+  return [quantileSorted(sorted, 1 / 3), quantileSorted(sorted, 2 / 3)];
 }

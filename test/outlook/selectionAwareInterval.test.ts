@@ -142,6 +142,41 @@ describe("selectionAwareInterval against the outlook's own functions rebuilt res
   }
 });
 
+describe("selectionAwareInterval resample by resample: each single-resample interval is that resample's odds, exactly", () => {
+  // One resample gives lower = upper = its odds, so 30 seeds compare 30 resamples one by one (exactly for the phase
+  // rule's counts; to 12 decimals for the curve, whose Newton iterations differ in rounding):
+  // missing values in one index, joint cells allowed (q gate 1, 3 years), this season's value for both or one index.
+  const workspace = syntheticWorkspace({ effect: 1.1, seed: 8 });
+  const calibration = runCalibration(workspace);
+  const base = inputOf(workspace, { A: 0.9, B: -0.7 }, 1, 1);
+  const gappy = new Map(base.indexValues);
+  gappy.set("B", new Map([...(base.indexValues.get("B") as Map<number, number>)].filter(([year]) => year % 7 !== 3)));
+  const cases: { label: string; input: SelectionIntervalInput }[] = [
+    { label: "joint cells allowed, B with gaps", input: { ...base, indexValues: gappy, jointMaxQ: 1, jointMinYears: 3 } },
+    { label: "the outlook's own gate", input: { ...base, indexValues: gappy } },
+    { label: "only B has a value this season", input: { ...base, indexValues: gappy, current: new Map([["B", 0.2]]), jointMaxQ: 1, jointMinYears: 3 } },
+  ];
+  for (const { label, input } of cases) {
+    for (const response of ["phase", "curve"] as const) {
+      it(`${label}, response "${response}"`, () => {
+        for (let seed = 1; seed <= 30; seed += 1) {
+          const one = { ...input, response, seed };
+          const fast = selectionAwareInterval(one).interval!;
+          const [slow] = slowSelectionInterval(one, calibration.activity, calibration.fireYears.threshold, { lowerCut: calibration.categories.lowerCut, upperCut: calibration.categories.upperCut });
+          if (response === "phase") {
+            expect(fast.lower).toBe(slow);
+            expect(fast.upper).toBe(slow);
+          } else {
+            // readFastResponseCurve's Newton steps end within rounding of fitResponseCurve's, not bit for bit.
+            expect(fast.lower).toBeCloseTo(slow as number, 12);
+            expect(fast.upper).toBe(fast.lower);
+          }
+        }
+      });
+    }
+  }
+});
+
 describe("selectionNote — when the two intervals differ much (width ratio above 1.5)", () => {
   const format = (lower: number, upper: number) => `${Math.round(lower * 100)}–${Math.round(upper * 100)}%`;
   const interval = (lower: number, upper: number) => ({ lower, upper, resamples: 999, blockYears: 5, level: 0.95, seed: 1, method: "m" });
