@@ -101,6 +101,26 @@ export function briefingStyleSheet(
 }
 
 /**
+ * A small document with the briefing's own style sheet (latin faces, as most briefings use) and a
+ * line in each face plus a little SVG: printed once while the statistics are computed
+ * (the rehearsal of `PdfPrinter.warmUp`), so the browser has decoded the fonts and set up its
+ * printing before the briefing itself arrives. Nothing of it is kept.
+ *
+ * @param templatesDir - folder holding briefing.css (default {@link TEMPLATES_DIR}).
+ * @returns a complete HTML document that loads nothing.
+ * @example
+ * rehearsalHtml().includes("@font-face"); // => true
+ */
+export function rehearsalHtml(templatesDir: string = TEMPLATES_DIR): string {
+  return (
+    `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><style>${briefingStyleSheet(templatesDir, ["latin"])}</style></head>` +
+    `<body class="paper-a4"><h1>Rehearsal</h1><p>Regular <em>italic</em> <span style="font-weight:600">semibold</span> <strong>bold</strong> 0123456789 −%</p>` +
+    `<svg xmlns="http://www.w3.org/2000/svg" width="120" height="40" viewBox="0 0 120 40"><path d="M0 30 L40 10 L80 25 L120 5" fill="none" stroke="currentColor"/>` +
+    `<circle cx="40" cy="10" r="3"/><rect x="0" y="32" width="120" height="8" opacity="0.3"/><text x="2" y="12" font-size="9">text</text></svg></body></html>`
+  );
+}
+
+/**
  * Render the view model to a self-contained HTML document (fonts and charts inline, no scripts,
  * no outside references, a Content-Security-Policy that forbids any load but data: URLs).
  *

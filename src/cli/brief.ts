@@ -225,7 +225,10 @@ export async function runBrief(region: string, options: BriefOptions, context: B
           .then(async (printer) => {
             mark("browser started");
             try {
-              await printer.warmUp();
+              // A rehearsal print with the briefing's style sheet, done while the statistics are computed.
+              const modules = await briefModules();
+              await printer.warmUp({ html: modules.rehearsalHtml(), options: { paper, footerHtml: "", footerFontCss: modules.embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]) } });
+              mark("browser rehearsed");
             } catch (error) {
               await printer.close();
               throw error;

@@ -178,7 +178,9 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
   const launching: Promise<PdfPrinter> = findBrowser({ explicit: options.browser, env: context.env }).then(async (found) => {
     const printer = await (await import("../briefing/printPdf.js")).PdfPrinter.launch(found);
     try {
-      await printer.warmUp();
+      // A rehearsal print with the briefing's style sheet (see PdfPrinter.warmUp), while the first region is computed.
+      const [{ rehearsalHtml }, { embeddedFontCss }] = await Promise.all([import("../briefing/renderBriefingHtml.js"), import("../briefing/embeddedFonts.js")]);
+      await printer.warmUp({ html: rehearsalHtml(), options: { paper: options.paper?.toLowerCase() === "letter" ? "letter" : "a4", footerHtml: "", footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]) } });
     } catch (error) {
       await printer.close();
       throw error;

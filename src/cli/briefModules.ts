@@ -36,6 +36,7 @@ export async function briefModules() {
     buildBriefingView: view.buildBriefingView,
     embeddedFontCss: fonts.embeddedFontCss,
     renderBriefingHtml: html.renderBriefingHtml,
+    rehearsalHtml: html.rehearsalHtml,
     progressReporter: progress.progressReporter,
     readKeptOutlooks: kept.readKeptOutlooks,
     reviewRegion: kept.reviewRegion,

@@ -5,7 +5,7 @@ import type { Skill } from "../hindcast/types.js";
 import { attachHindcast, buildOutlookWithoutHindcast, outlookHindcastInput, type OutlookRequest } from "../outlook/buildOutlook.js";
 import type { Outlook } from "../outlook/types.js";
 import type { Workspace } from "../workspace/types.js";
-import type { FromHindcastWorker } from "./hindcastWorker.js";
+import type { FromHindcastWorker, HindcastWorkerData } from "./hindcastWorker.js";
 import type { StageMark } from "./stageTimings.js";
 
 const WORKER_URL = new URL("./hindcastWorker.js", import.meta.url);
@@ -16,11 +16,11 @@ const COMPILED = import.meta.url.endsWith(".js");
  * A hindcast computed in a worker thread; null when no worker could be used or the worker's computation failed
  * (the caller then computes it here, which reproduces any error with its own class and stack).
  */
-function hindcastInWorker(input: ReturnType<typeof outlookHindcastInput>): { readonly result: Promise<Skill | null>; readonly stop: () => void } {
+function hindcastInWorker(data: HindcastWorkerData): { readonly result: Promise<Skill | null>; readonly stop: () => void } {
   let worker: Worker | null = null;
   const result = new Promise<Skill | null>((resolve) => {
     try {
-      worker = new Worker(WORKER_URL, { workerData: input });
+      worker = new Worker(WORKER_URL, { workerData: data });
     } catch {
       resolve(null);
       return;
@@ -51,20 +51,31 @@ export async function buildOutlookBeside(
 ): Promise<Outlook> {
   const input = outlookHindcastInput(workspace, calibration, request);
   const phaseInput = { ...input, curveRule: false };
-  const worker = COMPILED && isMainThread ? hindcastInWorker(phaseInput) : null;
+  const threads = COMPILED && isMainThread;
+  const phaseWorker = threads ? hindcastInWorker({ part: "phase rule", input }) : null;
+  const curveWorker = threads && input.curveRule !== false ? hindcastInWorker({ part: "curve rule", input }) : null;
   let rest: ReturnType<typeof buildOutlookWithoutHindcast>;
-  let curveRule: Skill | null;
   try {
     rest = buildOutlookWithoutHindcast(workspace, calibration, request);
     mark("outlook but its hindcast (selection-aware interval)");
-    curveRule = input.curveRule === false ? null : runCurveRuleHindcast(input);
-    mark("curve rule's hindcast");
   } catch (error) {
-    worker?.stop(); // this run has failed: its hindcast is not waited for
+    phaseWorker?.stop(); // this run has failed: its hindcast is not waited for
+    curveWorker?.stop();
     throw error;
   }
-  const fromWorker = worker === null ? null : await worker.result;
-  if (worker !== null) mark(`phase rule's hindcast ${fromWorker === null ? "(worker failed: computed here)" : "received from its worker thread"}`);
+  let curveRule: Skill | null = null;
+  if (input.curveRule !== false) {
+    const fromWorker = curveWorker === null ? null : await curveWorker.result;
+    try {
+      curveRule = fromWorker ?? runCurveRuleHindcast(input);
+    } catch (error) {
+      phaseWorker?.stop();
+      throw error;
+    }
+    mark(`curve rule's hindcast${curveWorker === null ? "" : fromWorker === null ? " (worker failed: computed here)" : " received from its worker thread"}`);
+  }
+  const fromWorker = phaseWorker === null ? null : await phaseWorker.result;
+  if (phaseWorker !== null) mark(`phase rule's hindcast ${fromWorker === null ? "(worker failed: computed here)" : "received from its worker thread"}`);
   const phaseRule = fromWorker ?? runHindcast(phaseInput);
   return attachHindcast(rest, curveRule === null ? phaseRule : withCurveRule(phaseRule, curveRule));
 }

@@ -1,5 +1,5 @@
 import type { RandomSource } from "./createRandom.js";
-import { poolAdjacentViolators } from "./isotonicRegression.js";
+import { pavScratch, poolAdjacentViolators, poolAdjacentViolatorsInto } from "./isotonicRegression.js";
 import { quantileSorted } from "./quantileSorted.js";
 import { StatsInputError } from "./StatsInputError.js";
 
@@ -160,8 +160,10 @@ export function corpReliability(
   // Consistency band: outcomes redrawn under calibration, PAV refitted, quantiles per distinct forecast.
   const band: { forecast: number; lower: number; upper: number }[] = [];
   if (resamples > 0) {
-    const refitted: number[][] = Array.from({ length: groups }, () => new Array<number>(resamples));
-    const means = new Array<number>(groups);
+    // refitted[group · resamples + resample]: one row per distinct forecast, sorted in place at the end.
+    const refitted = new Float64Array(groups * resamples);
+    const means = new Float64Array(groups);
+    const scratch = pavScratch(groups);
     for (let resample = 0; resample < resamples; resample += 1) {
       for (let group = 0; group < groups; group += 1) {
         const forecast = forecasts[group] as number;
@@ -174,13 +176,11 @@ export function corpReliability(
         }
         means[group] = drawn / count;
       }
-      const fit = poolAdjacentViolators(means, counts);
-      for (let group = 0; group < groups; group += 1) {
-        (refitted[group] as number[])[resample] = fit[group] as number;
-      }
+      poolAdjacentViolatorsInto(means, counts, groups, refitted, resample, resamples, scratch);
     }
     for (let group = 0; group < groups; group += 1) {
-      const sorted = (refitted[group] as number[]).sort((a, b) => a - b);
+      // Fitted values are ≥ 0 and never −0, so the typed (numeric) sort orders them as (a, b) => a − b does.
+      const sorted = refitted.subarray(group * resamples, (group + 1) * resamples).sort() as unknown as readonly number[];
       band.push({
         forecast: forecasts[group] as number,
         lower: quantileSorted(sorted, (1 - level) / 2),

@@ -47,6 +47,72 @@ export function poolAdjacentViolators(means: readonly number[], weights: readonl
   return fitted;
 }
 
+/** Reusable buffers of {@link poolAdjacentViolatorsInto} for up to `size` groups. */
+export interface PavScratch {
+  readonly weight: Float64Array;
+  readonly mean: Float64Array;
+  readonly groups: Int32Array;
+}
+
+/** Allocates {@link PavScratch} for up to `size` groups. */
+export function pavScratch(size: number): PavScratch {
+  return { weight: new Float64Array(size), mean: new Float64Array(size), groups: new Int32Array(size) };
+}
+
+/**
+ * {@link poolAdjacentViolators} without allocating, for resampling loops: the same blocks, pooled in the same
+ * order with the same arithmetic (so bit for bit the same fitted values), written to `out[offset + stride·g]`
+ * for group g = 0 … count − 1.
+ *
+ * @param means - group means, ascending x, read at 0 … count − 1.
+ * @param weights - group weights, same layout.
+ * @param count - number of groups (at most the scratch size).
+ * @param out - where the fitted values go.
+ * @param offset - position of group 0's value in `out`.
+ * @param stride - distance between consecutive groups' values in `out`.
+ * @param scratch - buffers from {@link pavScratch}.
+ * @example
+ * const out = new Float64Array(3);
+ * poolAdjacentViolatorsInto([0.5, 0.2, 0.9], [1, 1, 2], 3, out, 0, 1, pavScratch(3)); // out => [0.35, 0.35, 0.9]
+ */
+export function poolAdjacentViolatorsInto(
+  means: ArrayLike<number>,
+  weights: ArrayLike<number>,
+  count: number,
+  out: Float64Array,
+  offset: number,
+  stride: number,
+  scratch: PavScratch,
+): void {
+  const { weight, mean, groups } = scratch;
+  let top = 0;
+  for (let group = 0; group < count; group += 1) {
+    let currentWeight = weights[group] as number;
+    let currentMean = means[group] as number;
+    let currentGroups = 1;
+    while (top > 0 && (mean[top - 1] as number) > currentMean) {
+      top -= 1;
+      const previousWeight = weight[top] as number;
+      const pooled = previousWeight + currentWeight;
+      currentMean = (previousWeight * (mean[top] as number) + currentWeight * currentMean) / pooled;
+      currentWeight = pooled;
+      currentGroups += groups[top] as number;
+    }
+    weight[top] = currentWeight;
+    mean[top] = currentMean;
+    groups[top] = currentGroups;
+    top += 1;
+  }
+  let position = offset;
+  for (let block = 0; block < top; block += 1) {
+    const value = mean[block] as number;
+    for (let member = groups[block] as number; member > 0; member -= 1) {
+      out[position] = value;
+      position += stride;
+    }
+  }
+}
+
 /**
  * Isotonic regression by the pool-adjacent-violators algorithm (PAV): the non-decreasing fit of y on x
  * that minimizes the sum of squared errors.

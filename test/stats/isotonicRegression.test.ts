@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { isotonicRegression } from "../../src/stats/isotonicRegression.js";
+import { isotonicRegression, pavScratch, poolAdjacentViolators, poolAdjacentViolatorsInto } from "../../src/stats/isotonicRegression.js";
 import { StatsInputError } from "../../src/stats/StatsInputError.js";
 
 /**
@@ -174,5 +174,27 @@ describe("isotonicRegression(x, y)", () => {
       expect(() => isotonicRegression([Number.NaN], [1])).toThrow(StatsInputError);
       expect(() => isotonicRegression([1], [Number.POSITIVE_INFINITY])).toThrow(StatsInputError);
     });
+  });
+});
+
+describe("poolAdjacentViolatorsInto — the resampling loops' PAV without allocation", () => {
+  it("gives bit for bit poolAdjacentViolators' fitted values, at any offset and stride (fast-check)", () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.integer({ min: 0, max: 12 }), fc.integer({ min: 1, max: 9 })), { minLength: 1, maxLength: 40 }),
+        fc.integer({ min: 0, max: 3 }),
+        fc.integer({ min: 1, max: 4 }),
+        (groups, offset, stride) => {
+          // Means as in a resample: events / cases, so every value is an exact ratio of small integers.
+          const means = groups.map(([events, cases]) => Math.min(events, cases) / cases);
+          const weights = groups.map(([, cases]) => cases);
+          const out = new Float64Array(offset + stride * groups.length);
+          poolAdjacentViolatorsInto(means, weights, groups.length, out, offset, stride, pavScratch(groups.length));
+          const expected = poolAdjacentViolators(means, weights);
+          expect(groups.map((_, g) => out[offset + stride * g])).toEqual(expected);
+        },
+      ),
+      { numRuns: 300, seed: 11 },
+    );
   });
 });
