@@ -1,42 +1,17 @@
-import { isMainThread, Worker } from "node:worker_threads";
 import type { Calibration } from "../calibrate/types.js";
 import { runCurveRuleHindcast, runHindcast, withCurveRule } from "../hindcast/runHindcast.js";
 import type { Skill } from "../hindcast/types.js";
 import { attachHindcast, buildOutlookWithoutHindcast, outlookHindcastInput, type OutlookRequest } from "../outlook/buildOutlook.js";
 import type { Outlook } from "../outlook/types.js";
 import type { Workspace } from "../workspace/types.js";
-import type { FromHindcastWorker, HindcastWorkerData } from "./hindcastWorker.js";
+import { partInNewWorker, workersUsable } from "./hindcastWorkers.js";
 import type { StageMark } from "./stageTimings.js";
 
-const WORKER_URL = new URL("./hindcastWorker.js", import.meta.url);
-/** Running from the compiled JavaScript (not from the TypeScript sources under a test runner). */
-const COMPILED = import.meta.url.endsWith(".js");
-
 /**
- * A hindcast computed in a worker thread; null when no worker could be used or the worker's computation failed
- * (the caller then computes it here, which reproduces any error with its own class and stack).
- */
-function hindcastInWorker(data: HindcastWorkerData): { readonly result: Promise<Skill | null>; readonly stop: () => void } {
-  let worker: Worker | null = null;
-  const result = new Promise<Skill | null>((resolve) => {
-    try {
-      worker = new Worker(WORKER_URL, { workerData: data });
-    } catch {
-      resolve(null);
-      return;
-    }
-    worker.once("message", (message: FromHindcastWorker) => resolve(message.ok ? message.skill : null));
-    // A worker that fails to start or dies is not an error of the computation: compute it here instead.
-    worker.once("error", () => resolve(null));
-    worker.once("exit", () => resolve(null));
-  });
-  return { result, stop: () => void (worker as Worker | null)?.terminate() };
-}
-
-/**
- * The same outlook as buildOutlook, computed on two cores: the phase rule's hindcast (its permutation test and
- * bootstrap intervals, the largest part of the work) runs in a worker thread while this thread builds the rest
- * of the outlook (mostly the selection-aware interval) and the curve rule's hindcast; attachHindcast joins them.
+ * The same outlook as buildOutlook, computed on several cores: the phase rule's hindcast and the curve rule's
+ * (their permutation tests and bootstrap intervals, the largest part of the work) run in two worker threads while
+ * this thread builds the rest of the outlook (mostly the selection-aware interval), and attachHindcast joins
+ * them. This thread is then free for other work (`brief` starts its browser meanwhile).
  * Every part draws from its own seeded stream, so the result is byte-for-byte the one-thread result. Used from
  * the main thread of the compiled program; in a worker thread (a batch already uses every core) or from the
  * sources under a test runner, every part is computed here.
@@ -51,9 +26,9 @@ export async function buildOutlookBeside(
 ): Promise<Outlook> {
   const input = outlookHindcastInput(workspace, calibration, request);
   const phaseInput = { ...input, curveRule: false };
-  const threads = COMPILED && isMainThread;
-  const phaseWorker = threads ? hindcastInWorker({ part: "phase rule", input }) : null;
-  const curveWorker = threads && input.curveRule !== false ? hindcastInWorker({ part: "curve rule", input }) : null;
+  const threads = workersUsable();
+  const phaseWorker = threads ? partInNewWorker({ part: "phase rule", input }) : null;
+  const curveWorker = threads && input.curveRule !== false ? partInNewWorker({ part: "curve rule", input }) : null;
   let rest: ReturnType<typeof buildOutlookWithoutHindcast>;
   try {
     rest = buildOutlookWithoutHindcast(workspace, calibration, request);
