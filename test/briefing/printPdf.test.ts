@@ -9,7 +9,7 @@ import { embeddedFontCss } from "../../src/briefing/embeddedFonts.js";
 import { escapeHtml } from "../../src/briefing/escapeHtml.js";
 import { BrowserLaunchError, BrowserNotFoundError } from "../../src/briefing/findBrowser.js";
 import { launchFailureReason, launchPrinter, PdfPrinter, processesUsingProfile, PROFILE_PREFIX, signalExitCode } from "../../src/briefing/printPdf.js";
-import { renderBriefingHtml } from "../../src/briefing/renderBriefingHtml.js";
+import { rehearsalHtml, renderBriefingHtml } from "../../src/briefing/renderBriefingHtml.js";
 import { formatPercent } from "../../src/outlook/describeChance.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
 import { flatText, pdfPageTexts } from "./pdfText.js";
@@ -229,4 +229,28 @@ describe("PdfPrinter.launch(a program that is not a browser)", () => {
     const pages = await Promise.all(printed.map((result) => pdfPageTexts(result.pdf)));
     pages.forEach((page, position) => expect(flatText(page)).toContain(texts[position]));
   });
+});
+
+describe("PdfPrinter.warmUp(rehearsal): a first print with the briefing's style sheet, thrown away", () => {
+  it("the briefing printed after the rehearsal has the briefing's text and pages, nothing of the rehearsal, and loads nothing", async () => {
+    const rehearsed = await launchPrinter({});
+    try {
+      const html = rehearsalHtml();
+      expect(html).toContain("@font-face");
+      await rehearsed.warmUp({ html, options: { paper: "a4", ...footer } });
+      const inputs = sampleBriefingInputs({});
+      const view = buildBriefingView({ ...inputs, toolVersion: "9.8.7", safetyMarkdown: SAFETY, paper: "a4" });
+      const after = await rehearsed.print(renderBriefingHtml(view), { paper: "a4", ...footer });
+      const pages = await pdfPageTexts(after.pdf);
+      expect(flatText(pages)).not.toContain("Rehearsal");
+      expect(flatText(pages)).toContain("Statistical outlook from past records — not an official forecast or fire-danger rating");
+      expect(flatText(pages)).toContain("Issued 10 March 2027 for the 2027 fire season");
+      expect(after.blockedRequests).toEqual([]);
+      // The same document on the file's printer, which never rehearsed: the same pages, the same text.
+      const plain = await pdfPageTexts((await printer.print(renderBriefingHtml(view), { paper: "a4", ...footer })).pdf);
+      expect(pages).toEqual(plain);
+    } finally {
+      await rehearsed.close();
+    }
+  }, 60_000);
 });
