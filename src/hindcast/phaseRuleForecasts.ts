@@ -88,6 +88,9 @@ export function phaseRuleScratch(design: HindcastDesign): PhaseRuleScratch {
  * @param settings - jointMinYears and jointMaxQ of the outlook.
  * @param scratch - reusable buffers from phaseRuleScratch(design); the result lives in scratch.output and is
  *   overwritten by the next call.
+ * @param outputs - "all", or "probability" for the permutation tests, which read only `probability`, `basis` and
+ *   `cellIndex`: the category counts are then not kept and `categories` and `climatologyCategories` are NaN
+ *   (the probabilities and cells are the same in both, which the tests beside it check).
  * @returns the forecasts of every fold.
  */
 export function phaseRuleForecasts(
@@ -96,7 +99,9 @@ export function phaseRuleForecasts(
   category: Uint8Array,
   settings: PhaseRuleSettings,
   scratch: PhaseRuleScratch = phaseRuleScratch(design),
+  outputs: "all" | "probability" = "all",
 ): PhaseRuleForecasts {
+  const withCategories = outputs === "all";
   const K = design.names.length;
   const n = design.years.length;
   const { baseFire, baseCategory, foldYears, foldFire, pValues, qValues, order, defined, current } = scratch;
@@ -118,8 +123,12 @@ export function phaseRuleForecasts(
       if (phase < 0) continue;
       const slot = (phaseOffset[k] as number) + phase;
       baseFire[slot] = (baseFire[slot] as number) + burned;
-      baseCategory[slot * 3 + cat] = (baseCategory[slot * 3 + cat] as number) + 1;
+      if (withCategories) baseCategory[slot * 3 + cat] = (baseCategory[slot * 3 + cat] as number) + 1;
     }
+  }
+  if (!withCategories) {
+    out.categories.fill(Number.NaN);
+    out.climatologyCategories.fill(Number.NaN);
   }
   for (const table of scratch.joint.values()) {
     table.fire.fill(0);
@@ -151,6 +160,7 @@ export function phaseRuleForecasts(
         if (pa < 0 || pb < 0) continue;
         const cell = pa * table.width + pb;
         table.fire[cell] = (table.fire[cell] as number) + (fire[position] as number);
+        if (!withCategories) continue;
         const slot = cell * 3 + (category[position] as number);
         table.category[slot] = (table.category[slot] as number) + 1;
       }
@@ -172,6 +182,7 @@ export function phaseRuleForecasts(
     let left2 = categoryTotal[2] as number;
     for (let position = windowStart; position < windowEnd; position += 1) {
       leftFire -= fire[position] as number;
+      if (!withCategories) continue;
       const cat = category[position] as number;
       if (cat === 0) left0 -= 1;
       else if (cat === 1) left1 -= 1;
@@ -254,6 +265,7 @@ export function phaseRuleForecasts(
         if (baseA[position] !== phaseA || baseB[position] !== phaseB) continue;
         years -= 1;
         burned -= fire[position] as number;
+        if (!withCategories) continue;
         const cat = category[position] as number;
         if (cat === 0) k0 -= 1;
         else if (cat === 1) k1 -= 1;
@@ -282,6 +294,7 @@ export function phaseRuleForecasts(
             const sign = now ? 1 : -1;
             years += sign;
             burned += sign * (fire[position] as number);
+            if (!withCategories) continue;
             const cat = category[position] as number;
             if (cat === 0) k0 += sign;
             else if (cat === 1) k1 += sign;
@@ -320,7 +333,7 @@ export function phaseRuleForecasts(
         let k1 = baseCategory[slot * 3 + 1] as number;
         let k2 = baseCategory[slot * 3 + 2] as number;
         const base = basePhase[k] as Int8Array;
-        for (let position = windowStart; position < windowEnd; position += 1) {
+        for (let position = windowStart; position < windowEnd && withCategories; position += 1) {
           if (base[position] !== phase) continue;
           const cat = category[position] as number;
           if (cat === 0) k0 -= 1;
@@ -328,7 +341,7 @@ export function phaseRuleForecasts(
           else k2 -= 1;
         }
         const from = changeStart[fold * K + k] as number;
-        const to = changeStart[fold * K + k + 1] as number;
+        const to = withCategories ? (changeStart[fold * K + k + 1] as number) : from;
         for (let change = from; change < to; change += 1) {
           const position = changePosition[change] as number;
           const sign = base[position] === phase ? -1 : changePhase[change] === phase ? 1 : 0;
@@ -358,10 +371,11 @@ export function phaseRuleForecasts(
     out.basis[fold] = basis;
     out.cellIndex[fold] = cellIndex;
     out.probability[fold] = chosenFire / chosenYears;
+    out.climatology[fold] = leftFire / leftYears;
+    if (!withCategories) continue;
     out.categories[fold * 3] = c0 / chosenYears;
     out.categories[fold * 3 + 1] = c1 / chosenYears;
     out.categories[fold * 3 + 2] = c2 / chosenYears;
-    out.climatology[fold] = leftFire / leftYears;
     out.climatologyCategories[fold * 3] = left0 / leftYears;
     out.climatologyCategories[fold * 3 + 1] = left1 / leftYears;
     out.climatologyCategories[fold * 3 + 2] = left2 / leftYears;

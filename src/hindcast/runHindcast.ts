@@ -179,7 +179,7 @@ function phaseRuleHindcast(input: HindcastInput, common: HindcastCommon): Skill 
         : permutations <= 0
           ? { pValue: null, reason: "the permutation test was not run (0 shuffles)" }
           : permutationTest(design, event, permutations, blockYears, streamOf(seed, STREAM.permutation), (fire, category) => {
-              return phaseRuleForecasts(design, fire, category, settings, scratch).probability;
+              return phaseRuleForecasts(design, fire, category, settings, scratch, "probability").probability;
             });
   return finishSkill(skill, forecasts, event, phaseTest, permutations, blockYears, resamples, seed, [STREAM.bootstrap, STREAM.corp], true);
 }
@@ -210,7 +210,7 @@ function curveRuleHindcast(input: HindcastInput, common: HindcastCommon): Skill 
           ? { pValue: null, reason: "the permutation test was not run (0 shuffles)" }
           : permutationTest(design, event, curveCount, blockYears, streamOf(seed, STREAM.curvePermutation), (fire, category) => {
               // The test's statistic is the BSS of one-step case-deletion forecasts (ONE_STEP_RULE), observed and shuffled alike.
-              const shuffledPhase = phaseRuleForecasts(design, fire, category, settings, scratch);
+              const shuffledPhase = phaseRuleForecasts(design, fire, category, settings, scratch, "probability");
               return oneStepCurveForecasts(design, fire, shuffledPhase, oneStep);
             });
   const curveResult = finishSkill(curveSkill, curveYears, event, curveTest, curveCount, blockYears, resamples, seed, [STREAM.curveBootstrap, STREAM.curveCorp], false);

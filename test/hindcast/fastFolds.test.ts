@@ -3,7 +3,7 @@ import { curveRuleForecasts } from "../../src/hindcast/curveRuleForecasts.js";
 import { curveScratch } from "../../src/hindcast/fastResponseCurve.js";
 import { fixedEvent } from "../../src/hindcast/fixedEvent.js";
 import { hindcastDesign } from "../../src/hindcast/hindcastDesign.js";
-import { BASIS, phaseRuleForecasts } from "../../src/hindcast/phaseRuleForecasts.js";
+import { BASIS, phaseRuleForecasts, phaseRuleScratch } from "../../src/hindcast/phaseRuleForecasts.js";
 import type { HindcastInput } from "../../src/hindcast/runHindcast.js";
 import { createRandom } from "../../src/stats/createRandom.js";
 import type { IndexSettings } from "../../src/workspace/types.js";
@@ -88,5 +88,41 @@ describe("phaseRuleForecasts(design, fire, category, settings) and curveRuleFore
     // The regions exercise every branch of the rule.
     expect(bases).toEqual(new Set(["joint", "single", "climatology"]));
     expect(folds).toBeGreaterThan(1500);
+  });
+});
+
+describe('phaseRuleForecasts(…, "probability"): the permutation tests\' pass', () => {
+  it("gives the same probability, basis, cell index and climatology as the full pass, fold by fold, on 40 tie-heavy regions with their records shuffled, sharing one scratch", () => {
+    let folds = 0;
+    for (let seed = 1; seed <= 40; seed += 1) {
+      const input = trickyInput(seed);
+      const design = hindcastDesign(input);
+      const event = fixedEvent(design.years, input.activity, input.top, input.measure);
+      const scratch = phaseRuleScratch(design);
+      const random = createRandom(1000 + seed);
+      for (let shuffle = 0; shuffle < 4; shuffle += 1) {
+        // A shuffled record (outcome and category of a year move together), as the permutation test makes.
+        const order = Array.from(event.fire, (_, i) => i);
+        for (let i = order.length - 1; i > 0; i -= 1) {
+          const j = random.nextInt(i + 1);
+          [order[i], order[j]] = [order[j] as number, order[i] as number];
+        }
+        const fire = Uint8Array.from(order, (from) => event.fire[from] as number);
+        const category = Uint8Array.from(order, (from) => event.category[from] as number);
+        // Alternate the two passes on the same scratch, so neither can lean on what the other left behind.
+        const quick = phaseRuleForecasts(design, fire, category, input, scratch, "probability");
+        const quickCopy = { probability: Float64Array.from(quick.probability), basis: Uint8Array.from(quick.basis), cellIndex: Int16Array.from(quick.cellIndex), climatology: Float64Array.from(quick.climatology) };
+        expect(Number.isNaN(quick.categories[0] as number)).toBe(true);
+        const full = phaseRuleForecasts(design, fire, category, input, scratch, "all");
+        expect(quickCopy.probability).toEqual(full.probability);
+        expect(quickCopy.basis).toEqual(full.basis);
+        expect(quickCopy.cellIndex).toEqual(full.cellIndex);
+        expect(quickCopy.climatology).toEqual(full.climatology);
+        // And the full pass after a quick one equals a full pass on fresh buffers.
+        expect(full.categories).toEqual(phaseRuleForecasts(design, fire, category, input).categories);
+        folds += design.folds;
+      }
+    }
+    expect(folds).toBeGreaterThan(6000);
   });
 });
