@@ -174,11 +174,7 @@ function prepare(input: SelectionIntervalInput): Prepared {
     const byYear = input.indexValues.get(settings.name);
     return Float64Array.from(input.years, (year) => byYear?.get(year) ?? Number.NaN);
   });
-  const byName = [...names.keys()].sort((a, b) => ((names[a] as string) < (names[b] as string) ? -1 : (names[a] as string) > (names[b] as string) ? 1 : 0));
-  const nameOrder = new Int32Array(names.length);
-  byName.forEach((k, rank) => {
-    nameOrder[k] = rank;
-  });
+  const sortedNames = [...names].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
   const phaseCount = input.indexSettings.map((settings) => settings.phases.labels.length);
   return {
     n,
@@ -189,7 +185,7 @@ function prepare(input: SelectionIntervalInput): Prepared {
     phaseCount,
     current: Float64Array.from(names, (name) => input.current.get(name) ?? Number.NaN),
     hasCurrent: Uint8Array.from(names, (name) => (input.current.has(name) ? 1 : 0)),
-    nameOrder,
+    nameOrder: Int32Array.from(names, (name) => sortedNames.indexOf(name)),
     phase: names.map(() => new Int8Array(n)),
     currentPhase: new Int32Array(names.length),
     drawn: new Float64Array(n),
