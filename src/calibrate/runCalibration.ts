@@ -17,6 +17,34 @@ import { seaForIndex } from "./seaForIndex.js";
 import { stabilityWindows } from "./stabilityWindows.js";
 import type { Calibration, IndexCalibration, PhaseOdds } from "./types.js";
 
+/**
+ * The first step of {@link runCalibration}: the composite fire record, its activity per year and the calibration
+ * period. The calibration years and their activity are all the outlook's hindcast needs (outlookHindcastInput),
+ * so `outlook` and `brief` start the hindcast from this while the rest of the calibration runs.
+ */
+export interface CalibrationBasis {
+  readonly record: ReturnType<typeof compositeFireRecord>;
+  readonly activity: ReturnType<typeof activityByYear>;
+  readonly period: ReturnType<typeof calibrationPeriod>;
+  /** The calibration years' activity, as Calibration.activity gives it. */
+  readonly calibrationActivity: ReadonlyMap<number, number>;
+}
+
+/**
+ * The composite record, activity and calibration period of a region (the start of {@link runCalibration}).
+ *
+ * @example
+ * const basis = calibrationBasis(workspace);
+ * runCalibration(workspace, {}, basis).years === basis.period.years; // => true
+ */
+export function calibrationBasis(workspace: Workspace): CalibrationBasis {
+  const { settings } = workspace;
+  const record = compositeFireRecord(workspace.fireRecord, settings.fireYears.minSitesRecording);
+  const activity = activityByYear(record, settings.fireYears.measure);
+  const period = calibrationPeriod(settings, record, workspace.indices);
+  return { record, activity, period, calibrationActivity: new Map(period.years.map((year) => [year, activity.get(year) as number])) };
+}
+
 export interface CalibrationOptions {
   /** Called before each index is calibrated (the CLI shows it on a terminal). */
   readonly onProgress?: (message: string) => void;
@@ -30,12 +58,12 @@ export interface CalibrationOptions {
  * modern fire record as a second era (see modernEra). Benjamini–Hochberg q-values (Benjamini Y., Hochberg Y. 1995, "Controlling
  * the false discovery rate", JRSS B 57:289–300) are computed across all indices' chi-square tests.
  * Pure: the same workspace (and seed) gives the same Calibration.
+ *
+ * @param basis - its first step, when already computed (calibrationBasis(workspace)).
  */
-export function runCalibration(workspace: Workspace, options: CalibrationOptions = {}): Calibration {
+export function runCalibration(workspace: Workspace, options: CalibrationOptions = {}, basis: CalibrationBasis = calibrationBasis(workspace)): Calibration {
   const { settings } = workspace;
-  const record = compositeFireRecord(workspace.fireRecord, settings.fireYears.minSitesRecording);
-  const activity = activityByYear(record, settings.fireYears.measure);
-  const period = calibrationPeriod(settings, record, workspace.indices);
+  const { record, activity, period } = basis;
   const indexValues: IndexValues = new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)]));
   const training = buildTrainingSet({
     years: period.years,
@@ -196,7 +224,7 @@ export function runCalibration(workspace: Workspace, options: CalibrationOptions
     region: { name: settings.name },
     period: { first: period.first, last: period.last, years: n },
     years: period.years,
-    activity: new Map(period.years.map((year) => [year, activity.get(year) as number])),
+    activity: basis.calibrationActivity,
     fireYears: training.fireYears,
     categories: training.categories,
     baseRate,

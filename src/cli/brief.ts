@@ -238,7 +238,8 @@ export async function runBrief(region: string, options: BriefOptions, context: B
   launched?.catch(() => undefined); // observed below; never an unhandled rejection
   const printerPromise: Promise<HtmlPrinter> = launched ?? Promise.resolve(context.printer as HtmlPrinter);
   try {
-    const { loadWorkspace, runCalibration, buildOutlookBeside, toOutlookJson, buildBriefingView, embeddedFontCss, renderBriefingHtml, progressReporter } = await briefModules();
+    const { loadWorkspace, calibrationBasis, runCalibration, startHindcastBeside, buildOutlookBeside, toOutlookJson, buildBriefingView, embeddedFontCss, renderBriefingHtml, progressReporter } =
+      await briefModules();
     mark("modules loaded");
     const workspace = await loadWorkspace(located(region, context.cwd));
     mark("region read");
@@ -279,19 +280,29 @@ export async function runBrief(region: string, options: BriefOptions, context: B
         throw error instanceof BrowserNotFoundError ? new UsageError(error.message) : error;
       });
     }
-    if (launched !== null) {
-      // Let the launch reach the point where the browser process runs (a few turns of the event loop; at
-      // most 50 ms, and not at all after a failed launch), so it starts up on its own during the computation.
-      await Promise.race([aboutToLaunch.then(() => pause(5)).then(() => pause(5)), launched.then(() => undefined), pause(50)]).catch(() => undefined);
-      mark("browser process started");
-      // A launch that failed meanwhile ends the run now, as above.
-      await Promise.race([launched.then(() => undefined), new Promise<void>((resolveNow) => setImmediate(resolveNow))]).catch((error: unknown) => {
-        throw error instanceof BrowserNotFoundError ? new UsageError(error.message) : error;
-      });
+    // The hindcast starts in its worker threads now, from the calibration years alone, and runs while the
+    // browser starts and the rest is calibrated here.
+    const basis = calibrationBasis(workspace);
+    const hindcast = startHindcastBeside(workspace, { years: basis.period.years, activity: basis.calibrationActivity }, request);
+    let calibration: Calibration;
+    try {
+      if (launched !== null) {
+        // Let the launch reach the point where the browser process runs (a few turns of the event loop; at
+        // most 50 ms, and not at all after a failed launch), so it starts up on its own during the computation.
+        await Promise.race([aboutToLaunch.then(() => pause(5)).then(() => pause(5)), launched.then(() => undefined), pause(50)]).catch(() => undefined);
+        mark("browser process started");
+        // A launch that failed meanwhile ends the run now, as above.
+        await Promise.race([launched.then(() => undefined), new Promise<void>((resolveNow) => setImmediate(resolveNow))]).catch((error: unknown) => {
+          throw error instanceof BrowserNotFoundError ? new UsageError(error.message) : error;
+        });
+      }
+      calibration = runCalibration(workspace, { onProgress: progressReporter() }, basis);
+    } catch (error) {
+      hindcast.stop();
+      throw error;
     }
-    const calibration = runCalibration(workspace, { onProgress: progressReporter() });
     mark("calibrated");
-    const outlook = await buildOutlookBeside(workspace, calibration, request, mark);
+    const outlook = await buildOutlookBeside(workspace, calibration, request, mark, hindcast);
     mark("outlook with its hindcast");
     const safetyPath = context.safetyPath ?? PACKAGE_SAFETY_PATH;
     let safetyMarkdown: string;

@@ -30,7 +30,9 @@ export async function briefModules() {
   ]);
   return {
     loadWorkspace: workspace.loadWorkspace,
+    calibrationBasis: calibrate.calibrationBasis,
     runCalibration: calibrate.runCalibration,
+    startHindcastBeside: outlook.startHindcastBeside,
     buildOutlookBeside: outlook.buildOutlookBeside,
     toOutlookJson: outlookJson.toOutlookJson,
     buildBriefingView: view.buildBriefingView,

@@ -1,6 +1,7 @@
 import { Command } from "commander";
-import { runCalibration } from "../calibrate/runCalibration.js";
-import { buildOutlookBeside } from "./buildOutlookBeside.js";
+import { calibrationBasis, runCalibration } from "../calibrate/runCalibration.js";
+import type { Calibration } from "../calibrate/types.js";
+import { buildOutlookBeside, startHindcastBeside } from "./buildOutlookBeside.js";
 import { comparisonSentence, formatPercent, formatPercentRange, headline } from "../outlook/describeChance.js";
 import { toOutlookJson } from "../outlook/toOutlookJson.js";
 import type { Outlook } from "../outlook/types.js";
@@ -29,8 +30,17 @@ export function outlookCommand(): Command {
         const region = regions[0] as string;
         const workspace = await loadWorkspace(region);
         const request = resolveOutlookRequest(workspace, options, new Date());
-        const calibration = runCalibration(workspace, { onProgress: progressReporter() });
-        const outlook = await buildOutlookBeside(workspace, calibration, request);
+        // The hindcast starts in its worker threads from the calibration years alone, while the rest is calibrated here.
+        const basis = calibrationBasis(workspace);
+        const hindcast = startHindcastBeside(workspace, { years: basis.period.years, activity: basis.calibrationActivity }, request);
+        let calibration: Calibration;
+        try {
+          calibration = runCalibration(workspace, { onProgress: progressReporter() }, basis);
+        } catch (error) {
+          hindcast.stop();
+          throw error;
+        }
+        const outlook = await buildOutlookBeside(workspace, calibration, request, undefined, hindcast);
         if (options.json === true) printJson(toOutlookJson(outlook));
         else writeOut(formatOutlook(outlook));
       } catch (error) {

@@ -58,8 +58,9 @@ export type OutlookWithoutHindcast = Omit<Outlook, "hindcast">;
 /**
  * The indices the outlook uses: those of the calibration with a finite value in the request, in calibration order.
  */
-function indicesWithValues(calibration: Calibration, request: OutlookRequest): string[] {
-  return calibration.indices
+/** The region's indices (in region.json's order, as the calibration lists them) with a finite value this season. */
+function indicesWithValues(workspace: Workspace, request: OutlookRequest): string[] {
+  return workspace.settings.indices
     .filter((index) => {
       const given = Object.hasOwn(request.values, index.name) ? request.values[index.name] : undefined;
       return given !== undefined && Number.isFinite(given);
@@ -70,16 +71,21 @@ function indicesWithValues(calibration: Calibration, request: OutlookRequest): s
 /**
  * The input of the outlook's cross-validated hindcast (runHindcast): the calibration years and records, the
  * indices with a current value, and the methods' settings and seed. It depends on nothing else of the outlook,
- * so the hindcast can run beside the rest (another thread) and be joined by {@link attachHindcast}.
+ * and of the calibration only on its years and their activity (which calibrationBasis gives before the rest is
+ * calibrated), so the hindcast can run beside the rest (other threads) and be joined by {@link attachHindcast}.
  */
-export function outlookHindcastInput(workspace: Workspace, calibration: Calibration, request: OutlookRequest): HindcastInput {
+export function outlookHindcastInput(
+  workspace: Workspace,
+  calibration: Pick<Calibration, "years" | "activity">,
+  request: OutlookRequest,
+): HindcastInput {
   const { settings } = workspace;
   return {
     years: calibration.years,
     activity: calibration.activity,
     indexValues: new Map(workspace.indices.map((series) => [series.name, valuesByYear(series)])),
     indexSettings: settings.indices,
-    indices: indicesWithValues(calibration, request),
+    indices: indicesWithValues(workspace, request),
     top: settings.fireYears.top,
     measure: settings.fireYears.measure,
     exclusion: settings.methods.hindcastExclusion,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { runCalibration } from "../../src/calibrate/runCalibration.js";
+import { calibrationBasis, runCalibration } from "../../src/calibrate/runCalibration.js";
 import { toCalibrationJson } from "../../src/calibrate/toCalibrationJson.js";
-import { buildOutlook } from "../../src/outlook/buildOutlook.js";
+import { buildOutlook, outlookHindcastInput } from "../../src/outlook/buildOutlook.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
 import { syntheticWorkspace, withCutsForA } from "../helpers/syntheticWorkspace.js";
 
@@ -148,5 +148,19 @@ describe("buildOutlook when the strongest index's phase has no past year", () =>
     expect(outlook.fireYear.basisIndices).toEqual(["B"]);
     expect(outlook.fireYear.basis).toMatch(/the most strongly linked index with past years in its current phase; no past year shared this season's phase of A\)$/);
     expect(outlook.warnings.map((w) => w.code)).toContain("no-clear-link");
+  });
+});
+
+describe("calibrationBasis(workspace): the first step of runCalibration, all the hindcast needs", () => {
+  it("gives the calibration's years and their activity, and runCalibration with it equals runCalibration without it", () => {
+    const workspace = syntheticWorkspace({ effect: 1.2, seed: 5 });
+    const basis = calibrationBasis(workspace);
+    const calibration = runCalibration(workspace, {}, basis);
+    expect(calibration.years).toBe(basis.period.years);
+    expect([...calibration.activity]).toEqual([...basis.calibrationActivity]);
+    expect(toCalibrationJson(calibration)).toEqual(toCalibrationJson(runCalibration(workspace)));
+    // The outlook's hindcast input is the same from the basis as from the whole calibration.
+    const request = { values: { A: 1.1, B: -0.4 }, issued: "2027-03-10", season: 2027 };
+    expect(outlookHindcastInput(workspace, { years: basis.period.years, activity: basis.calibrationActivity }, request)).toEqual(outlookHindcastInput(workspace, calibration, request));
   });
 });
