@@ -61,6 +61,8 @@ export interface OverviewRow {
   readonly verdict: string;
   /** Which past years the odds are read from (`fireYear.basis`). */
   readonly basis: string;
+  /** The indices whose value this season is provisional (`current[].provisional`: its window is not complete yet). */
+  readonly provisional: readonly string[];
   /** The briefing PDF written, or null. */
   readonly pdf: string | null;
   /** For a failed region: how many problems it had, and the first of them. */
@@ -138,6 +140,9 @@ export function overviewRowFromOutlook(outlookJson: unknown, folder: string, pdf
     skill: overviewSkill(outlookJson),
     verdict: typeof hindcast["verdict"] === "string" ? hindcast["verdict"] : "",
     basis: typeof fireYear["basis"] === "string" ? fireYear["basis"] : "",
+    provisional: Array.isArray(outlook["current"])
+      ? outlook["current"].map(asRecord).filter((entry) => entry["provisional"] === true && typeof entry["index"] === "string").map((entry) => entry["index"] as string)
+      : [],
     pdf,
     problem: null,
   };
@@ -170,6 +175,7 @@ export function failedOverviewRow(folder: string, problems: readonly string[]): 
     skill: null,
     verdict: "",
     basis: "",
+    provisional: [],
     pdf: null,
     problem: problems.length > 1 ? `${first} (and ${problems.length - 1} more)` : first,
   };
@@ -393,6 +399,25 @@ export function overviewDateNotes(rows: readonly OverviewRow[]): string[] {
 }
 
 /**
+ * The overview's note on provisional values: the regions whose odds use an index value computed from a window
+ * that is not complete yet (`current[].provisional` of their outlooks), as each briefing says on its page 1.
+ *
+ * @param rows - the rows in any order (failed regions are not counted).
+ * @returns the note, or null when no briefed region has a provisional value.
+ * @throws never.
+ * @example
+ * overviewProvisionalNote(rows); // => "Provisional index values: North (PMI); South (PMI). Their windows are not complete yet, …"
+ */
+export function overviewProvisionalNote(rows: readonly OverviewRow[]): string | null {
+  const provisional = sortOverviewRows(rows).filter((row) => row.status === "briefed" && row.provisional.length > 0);
+  if (provisional.length === 0) return null;
+  return (
+    `Provisional index values: ${provisional.map((row) => `${row.region} (${row.provisional.join(", ")})`).join("; ")}. ` +
+    "Their windows are not complete yet, so those odds may change when the remaining months are in; each briefing says which months it used."
+  );
+}
+
+/**
  * The heading line of the overview, in the words of the single briefings' header
  * ("Issued 10 March 2027" "for the 2027 fire season"), for several dates or seasons too.
  *
@@ -443,7 +468,8 @@ function chanceCell(chance: OverviewChance): string {
 /**
  * The overview as one self-contained HTML page (no script, no external resource): a header band
  * saying it is not an official forecast, the issue date and season and the moment it was made
- * (written as the single briefings write them), the notes of {@link overviewDateNotes}, a table of
+ * (written as the single briefings write them), the notes of {@link overviewDateNotes} and
+ * {@link overviewProvisionalNote}, a table of
  * every region in {@link sortOverviewRows} order, the regions that could not be briefed, and the
  * cautions. Every text is escaped.
  *
@@ -481,7 +507,8 @@ export function overviewHtml(rows: readonly OverviewRow[], options: OverviewPage
   const briefed = sorted.filter((row) => row.status === "briefed");
   const failed = sorted.filter((row) => row.status === "failed");
   const dateline = overviewDateline(sorted);
-  const dateNotes = overviewDateNotes(sorted);
+  const provisionalNote = overviewProvisionalNote(sorted);
+  const dateNotes = [...overviewDateNotes(sorted), ...(provisionalNote === null ? [] : [provisionalNote])];
   const counts = `${briefed.length} region${briefed.length === 1 ? "" : "s"} briefed` + (failed.length > 0 ? `, ${failed.length} not briefed` : "");
   // With several dates or seasons, each row says its own (only what differs).
   const datesDiffer = groupsOf(sorted, (row) => row.issued).length > 1;
@@ -544,7 +571,7 @@ ${notesBox}
 ${body}
 </tbody></table>
 ${failedList}
-<div class="cautions"><h2>Read with care</h2><ul>${options.cautions.map((text) => `<li>${escapeHtml(text)}</li>`).join("")}</ul></div>
+<div class="cautions"><h2>Cautions</h2><ul>${options.cautions.map((text) => `<li>${escapeHtml(text)}</li>`).join("")}</ul></div>
 </body></html>
 `;
 }

@@ -191,8 +191,18 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
   launching.catch(() => {
     launchFailed = true; // observed below; the regions waiting for it are not reported one by one
   });
+  // Progress lines in the order the regions were given: a region that finishes before an earlier one waits for
+  // it (threads finish regions out of order, and "[3/3] … [1/3]" would read backwards).
+  const finished = new Map<number, BatchRegionOutcome>();
+  let nextToReport = 0;
   const report = (outcome: BatchRegionOutcome, position: number): void => {
-    if (!launchFailed) context.onProgress?.(progressLine(outcome, position, regions.length));
+    finished.set(position, outcome);
+    while (finished.has(nextToReport)) {
+      const next = finished.get(nextToReport) as BatchRegionOutcome;
+      finished.delete(nextToReport);
+      if (!launchFailed) context.onProgress?.(progressLine(next, nextToReport, regions.length));
+      nextToReport += 1;
+    }
   };
   try {
     const threads = batchThreads(regions.length, context.env);

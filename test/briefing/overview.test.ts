@@ -8,6 +8,7 @@ import {
   overviewDateline,
   overviewDateNotes,
   overviewFooterText,
+  overviewProvisionalNote,
   overviewHtml,
   overviewRowFromOutlook,
   overviewSkill,
@@ -54,6 +55,7 @@ describe("overviewRowFromOutlook(outlook JSON, folder, pdf)", () => {
       skill: "Some skill",
       verdict: "Verdict of North. More words.",
       basis: "the years like North",
+      provisional: [],
       pdf: "/out/north.pdf",
       problem: null,
     });
@@ -225,5 +227,22 @@ describe("overviewDateNotes(rows), overviewDateline(rows), overviewFooterText(ro
     expect(overviewDateNotes([...many, other])[0]).toBe(
       "Regions were issued on different dates: 1 March 2027 (H); 10 March 2027 (A, B, C, D, E and 2 more). Each region's odds use what was known on its own date.",
     );
+  });
+});
+
+describe("overviewProvisionalNote(rows): the regions whose odds use a provisional index value", () => {
+  it("names each such region with its provisional indices (in the overview's order), and says nothing when there is none", () => {
+    const north = { ...outlookJson("North", 0.35, 0.5), current: [{ index: "PMI", value: -1.65, provisional: true }, { index: "ENSO", value: 0.2, provisional: false }] };
+    const south = { ...outlookJson("South", 0.2, 0.3), current: [{ index: "ENSO", value: 0.2, provisional: false }] };
+    const east = { ...outlookJson("East", 0.4, 0.6), current: [{ index: "PMI", value: -0.4, provisional: true }, { index: "WSI", value: 1.1, provisional: true }] };
+    const rows = [north, south, east].map((json, i) => overviewRowFromOutlook(json, `r${i}`, null));
+    expect(rows.map((row) => row.provisional)).toEqual([["PMI"], [], ["PMI", "WSI"]]);
+    expect(overviewProvisionalNote(rows)).toBe(
+      "Provisional index values: East (PMI, WSI); North (PMI). Their windows are not complete yet, so those odds may change when the remaining months are in; each briefing says which months it used.",
+    );
+    expect(overviewProvisionalNote([rows[1] as (typeof rows)[number], failedOverviewRow("bad", ["bad/region.json: broken"])])).toBeNull();
+    const page = overviewHtml([...rows], PAGE);
+    expect(page).toContain("Provisional index values: East (PMI, WSI); North (PMI).");
+    expect(page).toContain("<h2>Cautions</h2>");
   });
 });
