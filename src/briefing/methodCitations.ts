@@ -130,7 +130,7 @@ export const METHOD_CITATIONS: readonly MethodCitation[] = Object.freeze([
     use: "chance test of the hindcast: the fire record shuffled across years in blocks and the whole hindcast rerun; p = (b + 1)/(m + 1)",
     citation:
       "Phipson B., Smyth G.K. (2010) \u201cPermutation p-values should never be zero: calculating exact p-values when permutations are randomly drawn\u201d, " +
-      "Statistical Applications in Genetics and Molecular Biology 9(1): article 39.",
+      "Statistical Applications in Genetics and Molecular Biology 9(1): Article 39.",
   },
   {
     method: "One-step case deletion",

@@ -274,8 +274,8 @@ function twoEraTest(input: TwoEraInput): ModernHomogeneity {
   if (canTell) {
     sentence =
       direction === "same"
-        ? `The ${input.index} ${label} link differs between the two records although the odds ratios are close (${ratios}; ${pWords}).`
-        : `The ${input.index} ${label} link looks ${looks} in the modern record (${ratios}; ${pWords}).`;
+        ? `The ${input.index} ${label} association with high-fire years differs between the two records although the odds ratios are close (${ratios}; ${pWords}).`
+        : `The ${input.index} ${label} association with high-fire years looks ${looks} in the modern record (${ratios}; ${pWords}).`;
   } else {
     const why =
       modernFire < MIN_MODERN_FIRE_YEARS
@@ -283,8 +283,8 @@ function twoEraTest(input: TwoEraInput): ModernHomogeneity {
         : `${n} modern years cannot tell`;
     sentence =
       direction === "same"
-        ? `The ${input.index} ${label} link shows no clear change in the modern record, but ${why} whether it has changed a little (${ratios}; ${pWords}).`
-        : `The ${input.index} ${label} link looks ${looks} in the modern record, but ${why} this from chance (${ratios}; ${pWords}).`;
+        ? `The ${input.index} ${label} association with high-fire years shows no clear change in the modern record, but ${why} whether it has changed a little (${ratios}; ${pWords}).`
+        : `The ${input.index} ${label} association with high-fire years looks ${looks} in the modern record, but ${why} this from chance (${ratios}; ${pWords}).`;
   }
   return {
     test: TEST_NAME,

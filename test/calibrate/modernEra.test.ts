@@ -135,7 +135,7 @@ describe("modernEra — the two-era homogeneity test (Breslow–Day with Tarone'
     expect(reversed.pValue).toBeLessThan(0.001);
     expect(reversed.direction).toBe("weaker");
     expect(reversed.canTell).toBe(true);
-    expect(reversed.sentence).toMatch(/^The A high link looks weaker in the modern record/);
+    expect(reversed.sentence).toMatch(/^The A high association with high-fire years looks weaker in the modern record/);
     expect(reversed.modernOddsRatio!).toBeLessThan(1);
     expect(reversed.fireScarOddsRatio!).toBeGreaterThan(1);
   });
