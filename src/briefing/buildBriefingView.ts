@@ -898,7 +898,9 @@ export function buildBriefingView(inputs: BriefingInputs): BriefingView {
         : `Hindcast scores: ${missing(skill.reason)}.`,
     },
     howToRead: [
-      "The large figure is this season's chance of a high-fire year; the range is its 95% interval.",
+      selectionShown
+        ? "The large figure is this season's chance of a high-fire year; the range beside it is its 95% interval, and the wider range after it allows also for how the rule chose its index from the same records."
+        : "The large figure is this season's chance of a high-fire year; the range is its 95% interval.",
       "Compare it with an average year: higher odds tilt the season, they do not make a bad one certain.",
       "The hindcast box says whether the method beat the average year on past years; if not, plan for an average year.",
     ],

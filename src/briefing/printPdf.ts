@@ -372,8 +372,9 @@ export class PdfPrinter implements HtmlPrinter {
    *
    * @param rehearsal - a small HTML document (e.g. {@link PdfPrinter} users pass the briefing's
    *   style sheet with a line of text) and the options to print it with; omitted: no rehearsal.
-   * @returns when the page is ready (and the rehearsal printed).
-   * @throws Error when the browser fails.
+   * @returns when the page is ready and the rehearsal printed or failed (a rehearsal is only a head start: its
+   *   failure is not reported; a browser that really fails will fail the briefing's own print, which says so).
+   * @throws Error when the page cannot be opened.
    */
   async warmUp(rehearsal?: { readonly html: string; readonly options: PrintOptions }): Promise<void> {
     const page = await this.#preparedPage();
@@ -383,7 +384,7 @@ export class PdfPrinter implements HtmlPrinter {
       await page.pdf(pdfOptions(rehearsal.options));
     });
     this.#queue = run.catch(() => undefined);
-    await run;
+    await this.#queue;
   }
 
   #preparedPage(): Promise<Page> {

@@ -5,7 +5,7 @@ import { Command } from "commander";
 import { escapeHtml } from "../briefing/escapeHtml.js";
 import { BrowserNotFoundError, findBrowser } from "../briefing/findBrowser.js";
 // Heavy modules are imported inside runBrief, after the browser launch has begun (briefModules.ts).
-import type { HtmlPrinter, PaperSize } from "../briefing/printPdf.js";
+import type { HtmlPrinter, PaperSize, PrintOptions } from "../briefing/printPdf.js";
 import { briefModules } from "./briefModules.js";
 import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
@@ -157,6 +157,21 @@ export async function briefingMemory(
   return { review, sinceLast };
 }
 
+/**
+ * The rehearsal print for `PdfPrinter.warmUp`, or none when it cannot be made: a rehearsal is only a head start,
+ * and a briefing that cannot be made fails with its own message later.
+ *
+ * @example
+ * rehearsalOf(() => { throw new Error("no style sheet"); }); // => undefined
+ */
+export function rehearsalOf(make: () => { readonly html: string; readonly options: PrintOptions }): { readonly html: string; readonly options: PrintOptions } | undefined {
+  try {
+    return make();
+  } catch {
+    return undefined;
+  }
+}
+
 function paperOption(value: string | undefined): PaperSize {
   if (value === undefined) return "a4";
   const lower = value.toLowerCase();
@@ -227,7 +242,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
             try {
               // A rehearsal print with the briefing's style sheet, done while the statistics are computed.
               const modules = await briefModules();
-              await printer.warmUp({ html: modules.rehearsalHtml(), options: { paper, footerHtml: "", footerFontCss: modules.embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]) } });
+              await printer.warmUp(rehearsalOf(() => ({ html: modules.rehearsalHtml(), options: { paper, footerHtml: "", footerFontCss: modules.embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]) } })));
               mark("browser rehearsed");
             } catch (error) {
               await printer.close();

@@ -14,7 +14,7 @@ import type { Worker } from "node:worker_threads";
 import { basename, dirname, isAbsolute, join, normalize, resolve } from "node:path";
 import { findBrowser } from "../briefing/findBrowser.js";
 import type { HtmlPrinter, PdfPrinter, PrintOptions, PrintResult } from "../briefing/printPdf.js";
-import { PACKAGE_SAFETY_PATH, runBrief, type BriefContext, type BriefOptions, type BriefResult } from "./brief.js";
+import { PACKAGE_SAFETY_PATH, rehearsalOf, runBrief, type BriefContext, type BriefOptions, type BriefResult } from "./brief.js";
 import { UsageError } from "./errors.js";
 import { handleError } from "./handleError.js";
 import { firephaseVersion } from "./version.js";
@@ -161,6 +161,7 @@ export async function ensureOutDir(outDir: string, cwd: string): Promise<void> {
  */
 export async function runBriefBatch(regions: readonly string[], options: BriefOptions, context: BriefBatchContext): Promise<BriefBatchResult> {
   checkBatchUsage(regions, options, context.cwd);
+  const paper = options.paper?.toLowerCase() === "letter" ? "letter" : "a4";
   const outDir = options.outDir ?? ".";
   const shownDir = (name: string): string => {
     const joined = join(outDir, name);
@@ -180,7 +181,7 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
     try {
       // A rehearsal print with the briefing's style sheet (see PdfPrinter.warmUp), while the first region is computed.
       const [{ rehearsalHtml }, { embeddedFontCss }] = await Promise.all([import("../briefing/renderBriefingHtml.js"), import("../briefing/embeddedFonts.js")]);
-      await printer.warmUp({ html: rehearsalHtml(), options: { paper: options.paper?.toLowerCase() === "letter" ? "letter" : "a4", footerHtml: "", footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]) } });
+      await printer.warmUp(rehearsalOf(() => ({ html: rehearsalHtml(), options: { paper, footerHtml: "", footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]) } })));
     } catch (error) {
       await printer.close();
       throw error;
@@ -235,7 +236,7 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
       fontCss: embeddedFontCss([{ weight: 400, style: "normal" }, { weight: 600, style: "normal" }], ["latin"]),
     });
     const printed = await (await launching).print(html, {
-      paper: options.paper?.toLowerCase() === "letter" ? "letter" : "a4",
+      paper,
       footerHtml: escapeHtml(overviewFooterText(rows)),
       footerFontCss: embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]),
     });

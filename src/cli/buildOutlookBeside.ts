@@ -44,14 +44,12 @@ export function startHindcastBeside(workspace: Workspace, calibration: Pick<Cali
   };
 }
 
-/** The same years with the same activity (the hindcast started from calibrationBasis is the calibration's). */
+/**
+ * Started from this calibration's own years and activity: runCalibration with a calibrationBasis returns the
+ * basis's arrays themselves, so a hindcast started from that basis holds the very same objects.
+ */
 function sameRecord(input: HindcastInput, calibration: Pick<Calibration, "years" | "activity">): boolean {
-  if (input.years.length !== calibration.years.length) return false;
-  for (let i = 0; i < input.years.length; i += 1) {
-    const year = input.years[i] as number;
-    if (year !== calibration.years[i] || !Object.is(input.activity.get(year), calibration.activity.get(year))) return false;
-  }
-  return true;
+  return input.years === calibration.years && input.activity === calibration.activity;
 }
 
 /**
@@ -62,8 +60,8 @@ function sameRecord(input: HindcastInput, calibration: Pick<Calibration, "years"
  * is byte-for-byte the one-thread result. A part whose worker fails, or that has no worker, is computed here.
  *
  * @param mark - marks each part's end (stageTimer; FIREPHASE_TIMINGS=1).
- * @param started - the hindcast started earlier from the same request and the same calibration years and
- *   activity (it is checked, and restarted here when they differ).
+ * @param started - the hindcast started earlier (startHindcastBeside) for the same workspace and request, from
+ *   this calibration's basis; one started from other years or activity is stopped and started anew here.
  */
 export async function buildOutlookBeside(
   workspace: Workspace,

@@ -1,5 +1,5 @@
 /**
- * Worker thread of buildOutlookBeside: runs one part of a hindcast on the input it is given — the phase rule's
+ * Worker thread of the outlook's hindcast (started by hindcastWorkers.ts for startHindcastBeside): runs one part of a hindcast on the input it is given — the phase rule's
  * (runHindcast with `curveRule: false`) or the curve rule's (runCurveRuleHindcast) — and posts the result (or
  * the error's message) back. It loads only the hindcast's modules.
  */

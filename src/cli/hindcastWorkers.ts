@@ -20,9 +20,12 @@ export interface PartInWorker {
   readonly stop: () => void;
 }
 
-/** Workers are used from the main thread of the compiled program (in a worker thread, a batch already uses every core). */
-export function workersUsable(): boolean {
-  return COMPILED && isMainThread;
+/**
+ * Workers are used from the main thread of the compiled program: not in a worker thread (a batch already uses
+ * every core), and not when `FIREPHASE_THREADS=1` asks for one thread.
+ */
+export function workersUsable(env: Readonly<Record<string, string | undefined>> = process.env): boolean {
+  return COMPILED && isMainThread && env["FIREPHASE_THREADS"] !== "1";
 }
 
 /** Follow one worker to its answer: its first message, or null when it fails or dies. */

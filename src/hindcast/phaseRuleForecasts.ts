@@ -332,24 +332,26 @@ export function phaseRuleForecasts(
         let k0 = baseCategory[slot * 3] as number;
         let k1 = baseCategory[slot * 3 + 1] as number;
         let k2 = baseCategory[slot * 3 + 2] as number;
-        const base = basePhase[k] as Int8Array;
-        for (let position = windowStart; position < windowEnd && withCategories; position += 1) {
-          if (base[position] !== phase) continue;
-          const cat = category[position] as number;
-          if (cat === 0) k0 -= 1;
-          else if (cat === 1) k1 -= 1;
-          else k2 -= 1;
-        }
-        const from = changeStart[fold * K + k] as number;
-        const to = withCategories ? (changeStart[fold * K + k + 1] as number) : from;
-        for (let change = from; change < to; change += 1) {
-          const position = changePosition[change] as number;
-          const sign = base[position] === phase ? -1 : changePhase[change] === phase ? 1 : 0;
-          if (sign === 0) continue;
-          const cat = category[position] as number;
-          if (cat === 0) k0 += sign;
-          else if (cat === 1) k1 += sign;
-          else k2 += sign;
+        if (withCategories) {
+          const base = basePhase[k] as Int8Array;
+          for (let position = windowStart; position < windowEnd; position += 1) {
+            if (base[position] !== phase) continue;
+            const cat = category[position] as number;
+            if (cat === 0) k0 -= 1;
+            else if (cat === 1) k1 -= 1;
+            else k2 -= 1;
+          }
+          const from = changeStart[fold * K + k] as number;
+          const to = changeStart[fold * K + k + 1] as number;
+          for (let change = from; change < to; change += 1) {
+            const position = changePosition[change] as number;
+            const sign = base[position] === phase ? -1 : changePhase[change] === phase ? 1 : 0;
+            if (sign === 0) continue;
+            const cat = category[position] as number;
+            if (cat === 0) k0 += sign;
+            else if (cat === 1) k1 += sign;
+            else k2 += sign;
+          }
         }
         chosenYears = years;
         chosenFire = foldFire[slot] as number;

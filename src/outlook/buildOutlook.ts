@@ -55,9 +55,6 @@ export function buildOutlook(workspace: Workspace, calibration: Calibration, req
 /** An outlook before its hindcast is attached (see {@link attachHindcast}). */
 export type OutlookWithoutHindcast = Omit<Outlook, "hindcast">;
 
-/**
- * The indices the outlook uses: those of the calibration with a finite value in the request, in calibration order.
- */
 /** The region's indices (in region.json's order, as the calibration lists them) with a finite value this season. */
 function indicesWithValues(workspace: Workspace, request: OutlookRequest): string[] {
   return workspace.settings.indices
@@ -344,9 +341,6 @@ export function buildOutlookWithoutHindcast(workspace: Workspace, calibration: C
     indexValues,
     indexSettings: settings.indices,
     isFireYear: training.isFireYear,
-    categories: training.categories,
-    top: settings.fireYears.top,
-    measure: settings.fireYears.measure,
     current: currentValue,
     jointMinYears,
     jointMaxQ,

@@ -3,7 +3,6 @@ import type { IndexValues } from "../calibrate/buildTrainingSet.js";
 import { phaseTableChiSquare } from "../calibrate/rankIndicesByAssociation.js";
 import { benjaminiHochberg } from "../stats/benjaminiHochberg.js";
 import { curveScratch, readFastResponseCurve, type CurveScratch } from "../hindcast/fastResponseCurve.js";
-import type { ActivityCategories } from "../record/types.js";
 import { createRandom } from "../stats/createRandom.js";
 import { movingBlockBootstrapIndices } from "../stats/movingBlockBootstrap.js";
 import { quantileSorted } from "../stats/quantileSorted.js";
@@ -21,11 +20,8 @@ export interface SelectionIntervalInput {
   readonly years: readonly number[];
   readonly indexValues: IndexValues;
   readonly indexSettings: readonly IndexSettings[];
-  /** High-fire years and activity categories of the whole calibration period (kept fixed in every resample). */
+  /** High-fire years of the whole calibration period (kept fixed in every resample). */
   readonly isFireYear: ReadonlySet<number>;
-  readonly categories: ActivityCategories;
-  readonly top: number;
-  readonly measure: "fraction" | "sites";
   /** This season's value per index (indices without a value are absent). */
   readonly current: ReadonlyMap<string, number>;
   readonly jointMinYears: number;
@@ -140,7 +136,6 @@ export function selectionNote(
 interface Prepared {
   readonly n: number;
   readonly fire: Uint8Array;
-  readonly names: readonly string[];
   /** Index values by position, NaN where missing, in the order of the settings. */
   readonly values: readonly Float64Array[];
   /** Fixed cuts of an index with the "cuts" rule; null for terciles (recomputed on each resample). */
@@ -179,7 +174,6 @@ function prepare(input: SelectionIntervalInput): Prepared {
   return {
     n,
     fire,
-    names,
     values,
     fixedCuts: input.indexSettings.map((settings) => (settings.phases.kind === "cuts" ? settings.phases.cuts : null)),
     phaseCount,

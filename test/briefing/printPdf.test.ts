@@ -10,6 +10,7 @@ import { escapeHtml } from "../../src/briefing/escapeHtml.js";
 import { BrowserLaunchError, BrowserNotFoundError } from "../../src/briefing/findBrowser.js";
 import { launchFailureReason, launchPrinter, PdfPrinter, processesUsingProfile, PROFILE_PREFIX, signalExitCode } from "../../src/briefing/printPdf.js";
 import { rehearsalHtml, renderBriefingHtml } from "../../src/briefing/renderBriefingHtml.js";
+import { rehearsalOf } from "../../src/cli/brief.js";
 import { formatPercent } from "../../src/outlook/describeChance.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
 import { flatText, pdfPageTexts } from "./pdfText.js";
@@ -253,4 +254,31 @@ describe("PdfPrinter.warmUp(rehearsal): a first print with the briefing's style 
       await rehearsed.close();
     }
   }, 60_000);
+});
+
+describe("PdfPrinter.warmUp(a rehearsal that fails)", () => {
+  it("does not fail itself; the briefing's own print then reports the broken browser", async () => {
+    const own = await launchPrinter({});
+    try {
+      await own.warmUp(); // the page is open
+      // The browser dies: the rehearsal cannot print, but it was only a head start.
+      for (const pid of processesUsingProfile(own.userDataDir)) process.kill(pid, "SIGKILL");
+      await new Promise((resolve) => setTimeout(resolve, 200));
+      await expect(own.warmUp({ html: "<!DOCTYPE html><p>rehearsal</p>", options: { paper: "a4", ...footer } })).resolves.toBeUndefined();
+      await expect(own.print("<!DOCTYPE html><p>briefing</p>", { paper: "a4", ...footer })).rejects.toThrow();
+    } finally {
+      await own.close();
+    }
+    expect(existsSync(own.userDataDir)).toBe(false);
+  }, 60_000);
+
+  it("rehearsalOf: a rehearsal that cannot be made is none, not an error", () => {
+    expect(
+      rehearsalOf(() => {
+        throw new Error("no style sheet");
+      }),
+    ).toBeUndefined();
+    const made = { html: "<p>r</p>", options: { paper: "a4" as const, footerHtml: "", footerFontCss: "" } };
+    expect(rehearsalOf(() => made)).toBe(made);
+  });
 });

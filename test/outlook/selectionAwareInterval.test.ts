@@ -5,11 +5,16 @@ import { buildTrainingSet } from "../../src/calibrate/buildTrainingSet.js";
 import { forecastCell } from "../../src/calibrate/forecastCell.js";
 import { rankIndicesByAssociation } from "../../src/calibrate/rankIndicesByAssociation.js";
 import { runCalibration } from "../../src/calibrate/runCalibration.js";
-import { classifyPhase } from "../../src/climate/phaseDefinition.js";
 import { curveForecast } from "../../src/calibrate/curveForecast.js";
 import { buildOutlook } from "../../src/outlook/buildOutlook.js";
 import { createRandom } from "../../src/stats/createRandom.js";
 import { movingBlockBootstrapIndices } from "../../src/stats/movingBlockBootstrap.js";
+import { quantileSorted } from "../../src/stats/quantileSorted.js";
+import { classifyPhase, phaseDefinition } from "../../src/climate/phaseDefinition.js";
+import type { PhaseDefinition } from "../../src/climate/types.js";
+import type { TrainingSet } from "../../src/calibrate/buildTrainingSet.js";
+import type { ActivityCategories } from "../../src/record/types.js";
+import { curveScratch, readFastResponseCurve, type CurveScratch } from "../../src/hindcast/fastResponseCurve.js";
 import { selectionAwareInterval, selectionNote, type SelectionIntervalInput } from "../../src/outlook/selectionAwareInterval.js";
 import { toOutlookJson } from "../../src/outlook/toOutlookJson.js";
 import { wilsonInterval } from "../../src/stats/wilsonInterval.js";
@@ -32,9 +37,6 @@ function inputOf(workspace: Workspace, current: Record<string, number>, resample
     indexValues,
     indexSettings: workspace.settings.indices,
     isFireYear: training.isFireYear,
-    categories: training.categories,
-    top: 0.1,
-    measure: "fraction",
     current: new Map(Object.entries(current)),
     jointMinYears: 10,
     jointMaxQ: 0.05,
@@ -172,6 +174,89 @@ describe("selectionAwareInterval resample by resample: each single-resample inte
             expect(fast.upper).toBe(fast.lower);
           }
         }
+      });
+    }
+  }
+});
+
+/**
+ * The map-based resample of the release before the typed-array rewrite, kept as an exact reference: each resample
+ * a TrainingSet of pseudo-years (phaseDefinition, classifyPhase), rankIndicesByAssociation, forecastCell, and
+ * readFastResponseCurve with one scratch per index name (the same warm starts in the same order). The typed
+ * version must give bit for bit the same percentile interval, for the curve rule too.
+ */
+function mapBasedSelectionInterval(input: SelectionIntervalInput, categories: ActivityCategories): [number, number] {
+  const n = input.years.length;
+  const blockYears = Math.max(1, Math.min(Math.round(input.blockYears), n));
+  const random = createRandom(input.seed);
+  const names = input.indexSettings.map((settings) => settings.name);
+  const values = new Map(input.indexSettings.map((settings) => [settings.name, Float64Array.from(input.years, (year) => input.indexValues.get(settings.name)?.get(year) ?? Number.NaN)]));
+  const fire = input.years.map((year) => input.isFireYear.has(year));
+  const scratch = new Map<string, CurveScratch>();
+  const estimates: number[] = [];
+  for (let resample = 0; resample < input.resamples; resample += 1) {
+    const positions = movingBlockBootstrapIndices(n, blockYears, random);
+    const pseudoYears = positions.map((_, i) => i);
+    const isFireYear = new Set(pseudoYears.filter((i) => fire[positions[i] as number]));
+    const definitions = new Map<string, PhaseDefinition>();
+    const phaseOf = new Map<string, Map<number, number>>();
+    for (const settings of input.indexSettings) {
+      const byPosition = values.get(settings.name) as Float64Array;
+      const drawnYears = pseudoYears.filter((i) => !Number.isNaN(byPosition[positions[i] as number] as number));
+      const drawn = drawnYears.map((i) => byPosition[positions[i] as number] as number);
+      const definition = phaseDefinition(settings, drawn);
+      definitions.set(settings.name, definition);
+      phaseOf.set(settings.name, new Map(drawnYears.map((year, k) => [year, classifyPhase(drawn[k] as number, definition.cuts)])));
+    }
+    const fireYears = pseudoYears.filter((year) => isFireYear.has(year));
+    const training: TrainingSet = {
+      years: pseudoYears,
+      fireYears: { top: 0.1, measure: "fraction", threshold: null, years: fireYears, realisedShare: fireYears.length / n, calibrationYears: n },
+      isFireYear,
+      categories: { ...categories, byYear: new Map() },
+      definitions,
+      phaseOf,
+    };
+    const phases = new Map([...input.current].flatMap(([name, value]) => (definitions.has(name) ? [[name, classifyPhase(value, (definitions.get(name) as PhaseDefinition).cuts)] as const] : [])));
+    const cell = forecastCell(training, phases, rankIndicesByAssociation(training, names), input.jointMinYears, input.jointMaxQ);
+    const phaseOdds = cell.years.length === 0 ? fireYears.length / n : cell.fireYears / cell.years.length;
+    const index = input.response === "phase" || cell.basis === "climatology" ? undefined : cell.indices[0];
+    if (index === undefined) {
+      estimates.push(phaseOdds);
+      continue;
+    }
+    const buffers = scratch.get(index) ?? curveScratch(n);
+    scratch.set(index, buffers);
+    const byPosition = values.get(index) as Float64Array;
+    let m = 0;
+    for (let i = 0; i < n; i += 1) {
+      const x = byPosition[positions[i] as number] as number;
+      if (Number.isNaN(x)) continue;
+      buffers.x[m] = x;
+      buffers.y[m] = isFireYear.has(i) ? 1 : 0;
+      m += 1;
+    }
+    const estimate = readFastResponseCurve(buffers, m, input.current.get(index) as number);
+    estimates.push(Number.isNaN(estimate) ? phaseOdds : estimate);
+  }
+  estimates.sort((a, b) => a - b);
+  return [quantileSorted(estimates, 0.025), quantileSorted(estimates, 0.975)];
+}
+
+describe("selectionAwareInterval against the map-based resample of the previous release, bit for bit", () => {
+  const workspace = syntheticWorkspace({ effect: 1.3, seed: 17 });
+  const calibration = runCalibration(workspace);
+  const base = inputOf(workspace, { A: 1.1, B: -0.8 }, 120, 9);
+  const gappy = new Map(base.indexValues);
+  gappy.set("B", new Map([...(base.indexValues.get("B") as Map<number, number>)].filter(([year]) => year % 5 !== 1)));
+  for (const response of ["phase", "curve"] as const) {
+    for (const gate of [{ jointMaxQ: 0.05, jointMinYears: 10 }, { jointMaxQ: 1, jointMinYears: 3 }]) {
+      it(`response "${response}", q gate ${gate.jointMaxQ}, joint cells of at least ${gate.jointMinYears} years, one index with gaps`, () => {
+        const input = { ...base, ...gate, indexValues: gappy, response };
+        const fast = selectionAwareInterval(input).interval!;
+        const [lower, upper] = mapBasedSelectionInterval(input, calibration.categories);
+        expect(fast.lower).toBe(lower);
+        expect(fast.upper).toBe(upper);
       });
     }
   }
