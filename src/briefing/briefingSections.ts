@@ -167,7 +167,10 @@ export function hindcastExtras(skill: Skill, calibration: Calibration): Hindcast
     const bss = (rule: Skill) => signed(rule.brierSkillScore, 2);
     const rows = [
       row("Brier skill score", bss),
-      row("Ranked probability skill score", (rule) => (isFiniteNumber(rule.rpss) ? signed(rule.rpss, 2) : missing(rule.rpssReason ?? rule.reason))),
+      // A rule that issues no below/near/above odds of its own has no RPSS: that does not apply, it is not missing data.
+      row("Ranked probability skill score", (rule) =>
+        isFiniteNumber(rule.rpss) ? signed(rule.rpss, 2) : rule.rpssReason !== undefined ? `does not apply (${rule.rpssReason})` : missing(rule.reason),
+      ),
       row("ROC area", (rule) => (isFiniteNumber(rule.rocArea) ? formatDecimal(rule.rocArea, 2) : NOT_ENOUGH)),
       // With the shuffles behind it: with 99 shuffles 0.01 is the smallest p there can be.
       row("Permutation p (shuffles)", (rule) =>
@@ -216,13 +219,20 @@ export interface CurveView {
  * @param index - the index's calibration (with its `curve`).
  * @param years - past calibration years: value and high-fire flag.
  * @param current - this season's value of the index, or null.
+ * @param calibrationYears - the number of calibration years, when known: a curve fitted on fewer (years without
+ *   a value of the index) says "the N calibration years with a <index> value".
  * @returns the chart and caption, or why none is drawn.
  * @throws never.
  * @example
  * curveView(calibration.indices[0], [{ value: 1.2, fireYear: true }], 1.3).shown; // => true when q ≤ 0.05
  * @see Hosmer D.W., Lemeshow S., Sturdivant R.X. (2013) Applied Logistic Regression, 3rd edition, Wiley.
  */
-export function curveView(index: IndexCalibration, years: readonly { readonly value: number; readonly fireYear: boolean }[], current: number | null): CurveView {
+export function curveView(
+  index: IndexCalibration,
+  years: readonly { readonly value: number; readonly fireYear: boolean }[],
+  current: number | null,
+  calibrationYears?: number,
+): CurveView {
   const curve = index.curve;
   if (curve === null || curve === undefined) return { shown: false, chart: null, caption: "", missingText: `Response curve: ${missing(index.curveReason)}.` };
   // Clear only by the q-value across all indices' curves (the strongest of k curves reaches p ≤ 0.05 by
@@ -248,7 +258,7 @@ export function curveView(index: IndexCalibration, years: readonly { readonly va
     shown: true,
     chart: trustSvg(chart),
     caption:
-      `How the chance of a high-fire year rises or falls with the ${index.name} value: a logistic regression on ${plural(curve.years, "calibration year", "calibration years")} ` +
+      `How the chance of a high-fire year rises or falls with the ${index.name} value: a logistic regression on ${curve.years < (calibrationYears ?? curve.years) ? `the ${formatCount(curve.years)} calibration years with a ${index.name} value` : plural(curve.years, "calibration year", "calibration years")} ` +
       `(${formatCount(curve.fireYears)} high-fire), ${curve.method}, likelihood-ratio ${pText(curve.pValue)}${isFiniteNumber(curve.qValue) ? ` (${pText(curve.qValue).replace(/^p/, "q")}, false discovery rate across indices)` : ""}; the band is ${curve.band}. ` +
       `Ticks under the curve are the past years (taller: high-fire years); the curve is not read beyond the record's range (${formatDecimal(curve.range.min, 2)} to ${formatDecimal(curve.range.max, 2)}).` +
       (curve.separation ? " The record separates high-fire years completely at some value, so the penalized (Firth) fit is shown." : ""),

@@ -524,7 +524,11 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
       missingText: seaAvailable ? null : missing(sea.reason),
       chart: trustSvg(seaChartSvg),
       caption:
-        `Mean ${index.name} departure in the years around ${plural(sea.eventYears.length, "high-fire year", "high-fire years")} (lag 0 = the high-fire year); ` +
+        `Mean ${index.name} departure in the years around ${plural(sea.eventYears.length, "high-fire year", "high-fire years")}` +
+        (sea.eventYears.length < calibration.fireYears.years.length
+          ? ` (of the ${formatCount(calibration.fireYears.years.length)}: those whose whole window has ${index.name} values)`
+          : "") +
+        " (lag 0 = the high-fire year); " +
         "the shaded envelope shows how far chance alone goes (random years; settings in Appendix A).",
       outsideText:
         !seaAvailable
@@ -552,6 +556,7 @@ function buildIndexView(index: IndexCalibration, calibration: Calibration, outlo
         return value === undefined ? [] : [{ value, fireYear: fireYearSet.has(year) }];
       }),
       current === undefined ? null : current.value,
+      calibration.years.length,
     ),
     stability: {
       chart: trustSvg(stabilitySvg),

@@ -60,7 +60,7 @@ describe("hindcastExtras(skill, calibration)", () => {
     expect(extras.intervals[2]?.interval).toBe("0.51 to 0.70");
     expect(extras.intervalsNote).toContain("blocks of 5 years, 999 resamples");
     expect(extras.rules?.rows[0]).toEqual({ score: "Brier skill score", phase: "+0.05", curve: "+0.14" });
-    expect(extras.rules?.rows[1]?.curve).toBe("not enough data (the curve rule forecasts only high-fire years)");
+    expect(extras.rules?.rows[1]?.curve).toBe("does not apply (the curve rule forecasts only high-fire years)");
     // The p with the shuffles behind it: 0.01 is the smallest p 99 shuffles can give.
     expect(extras.rules?.rows[3]).toEqual({ score: "Permutation p (shuffles)", phase: "0.001 (999)", curve: "0.01 (99)" });
     expect(extras.rules?.sentence).toContain("the curve rule did better by its Brier skill score (+0.14 against +0.05)");

@@ -129,28 +129,39 @@ export function responseCurveChart(input: Readonly<ResponseCurveChartInput>, opt
       const diamond = symbol(symbolDiamond, 90)() ?? "";
       body += `<path${attrs({ d: diamond, transform: `translate(${coord(cx)} ${coord(y(reading))})`, fill: palette.current, stroke: palette.paper, "stroke-width": 1.5 })}/>`;
     }
-    // The label goes on the side where its box stays inside the plot and covers no phase-cut line
-    // (the wider-room side first); when both sides cover one, the side with room.
-    const text = `this season (${formatSigned(current, 2)})`;
-    const width = estimateTextWidth(text, LABEL_SIZE) * 1.1 + 4;
+    // The label goes beside the line, on the side where its box stays inside the plot and covers no phase-cut
+    // line (the wider-room side first); where neither side has room for one line, as two lines ("this season"
+    // over the value) beside the line; only then just past the nearest cut, and at last wherever it fits.
+    const lines = [`this season (${formatSigned(current, 2)})`, ["this season", `(${formatSigned(current, 2)})`]] as const;
+    const widthOf = (text: string): number => estimateTextWidth(text, LABEL_SIZE) * 1.1 + 4;
     const cutXs = cuts.filter((cut) => cut >= low && cut <= high).map((cut) => x(cut));
-    // Candidates: next to the line on either side, then just past the nearest cut on either side.
     const preferred = cx < (frame.left + frame.right) / 2;
-    const candidates: { right: boolean; at: number }[] = [];
-    for (const right of [preferred, !preferred]) candidates.push({ right, at: cx + (right ? 6 : -6) });
+    type Candidate = { readonly right: boolean; readonly at: number; readonly text: string | readonly string[] };
+    const besideLine = (text: Candidate["text"]): Candidate[] => [preferred, !preferred].map((right) => ({ right, at: cx + (right ? 6 : -6), text }));
+    const pastCuts: Candidate[] = [];
     for (const right of [preferred, !preferred]) {
       const beyond = cutXs.filter((cutX) => (right ? cutX > cx : cutX < cx)).sort((a, b) => (right ? a - b : b - a));
-      for (const cutX of beyond) candidates.push({ right, at: cutX + (right ? 5 : -5) });
+      for (const cutX of beyond) pastCuts.push({ right, at: cutX + (right ? 5 : -5), text: lines[0] });
     }
-    const span = (candidate: { right: boolean; at: number }): [number, number] =>
-      candidate.right ? [candidate.at - 2, candidate.at + width] : [candidate.at - width, candidate.at + 2];
-    const fits = (candidate: { right: boolean; at: number }): boolean => span(candidate)[0] >= frame.left && span(candidate)[1] <= frame.right;
-    const clear = (candidate: { right: boolean; at: number }): boolean => {
+    const span = (candidate: Candidate): [number, number] => {
+      const width = typeof candidate.text === "string" ? widthOf(candidate.text) : Math.max(...candidate.text.map(widthOf));
+      return candidate.right ? [candidate.at - 2, candidate.at + width] : [candidate.at - width, candidate.at + 2];
+    };
+    const fits = (candidate: Candidate): boolean => span(candidate)[0] >= frame.left && span(candidate)[1] <= frame.right;
+    const clear = (candidate: Candidate): boolean => {
       const [from, to] = span(candidate);
       return cutXs.every((cutX) => cutX < from || cutX > to) && (cx < from || cx > to);
     };
-    const chosen = candidates.find((candidate) => fits(candidate) && clear(candidate)) ?? candidates.find(fits) ?? candidates[0]!;
-    body += svgTextOnPanel(chosen.at, plot.top + 12, text, { "text-anchor": chosen.right ? "start" : "end", fill: palette.current, "font-weight": 600 });
+    const oneLine = besideLine(lines[0]);
+    const chosen =
+      [...oneLine, ...besideLine(lines[1]), ...pastCuts].find((candidate) => fits(candidate) && clear(candidate)) ??
+      [...oneLine, ...pastCuts].find(fits) ??
+      (oneLine[0] as Candidate);
+    const labelAttributes = { "text-anchor": chosen.right ? "start" : "end", fill: palette.current, "font-weight": 600 };
+    const rows = typeof chosen.text === "string" ? [chosen.text] : chosen.text;
+    rows.forEach((row, i) => {
+      body += svgTextOnPanel(chosen.at, plot.top + 12 + i * (LABEL_SIZE + 2), row, labelAttributes);
+    });
   }
   body += legend(entries, frame, frame.bottom + 52);
   return `${svgOpen(frame, `Chance of a high-fire year against the ${input.indexName} value`)}${body}</svg>`;

@@ -86,6 +86,24 @@ describe("responseCurveChart", () => {
       expect(right, String(current)).toBeLessThanOrEqual(680);
     }
   });
+  it("keeps the 'this season' label beside its line when one line of text fits on neither side: two lines then, not past a cut", () => {
+    // As on the demo: the curve from −2.4 to 2.86, this season at −1.65, cuts at ±0.5 (the axis runs −3 to 4).
+    const wide = Array.from({ length: 27 }, (_, i) => {
+      const v = -2.4 + (i * 5.26) / 26;
+      const p = 1 / (1 + Math.exp(-(-2.6 - 1.1 * v)));
+      return { value: v, estimate: p, lower: p * 0.6, upper: Math.min(1, p * 1.5) };
+    });
+    const document = checkChartSvg(responseCurveChart({ ...input, points: wide, years: [...years, { value: 2.86, fireYear: false }] }));
+    const line = Number(elementsWith(document, "line", "class", "this-season")[0]?.attributes.x1);
+    const panels = elementsWith(document, "rect", "class", "label-panel").map((panel) => [Number(panel.attributes.x), Number(panel.attributes.x) + Number(panel.attributes.width)] as const);
+    expect(panels.length).toBeGreaterThanOrEqual(1);
+    for (const [left, right] of panels) {
+      const gap = Math.min(Math.abs(left - line), Math.abs(right - line));
+      expect(gap, `panel ${left}–${right}, line at ${line}`).toBeLessThan(12);
+    }
+    expect(chartText(document)).toContain("this season");
+    expect(chartText(document)).toContain("\u22121.65");
+  });
   it("responseCurveChart(input) draws the curve in its band, a tick per past year (high-fire taller, in their colour), the cuts lightly and this season in violet", () => {
     const document = checkChartSvg(responseCurveChart(input));
     expect(elementsWith(document, "path", "class", "curve")[0]?.attributes.stroke).toBe(palette.estimate);
