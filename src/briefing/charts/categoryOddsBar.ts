@@ -51,7 +51,7 @@ const averageMarker = symbol(symbolDiamond, 70);
  * Category odds bars: the chance of a below-, near- and above-normal fire year this season as
  * three bars (pale aqua, mid teal, deep teal: one hue, darker for more fire) with interval whiskers
  * and, on each bar, an average-year (khaki) diamond at the
- * category's average-year share labelled with that share ("49%"); a legend over the plot names
+ * category's average-year share labelled with that share ("avg 49%"); a legend over the plot names
  * the two ("This season, 95% interval", "Average year"). Under each category name the estimate
  * is printed in bold and its interval below it, in whole percent ("53%", "(40–66%)").
  *
@@ -125,7 +125,8 @@ export function categoryOddsBar(input: Readonly<CategoryOddsBarInput>, options?:
     if (isDrawable(average)) {
       const ay = y(Math.min(1, Math.max(0, average)));
       body += `<path${attrs({ class: "average-year", d: diamond, transform: `translate(${coord(middle)} ${coord(ay)})`, fill: palette.baseRate, stroke: palette.paper, "stroke-width": 1.4 })}/>`;
-      body += svgTextOnPanel(start + x.bandwidth() + 4, ay + 4, formatPercent(average), {
+      // "avg 49%": the average year's share, not the bar's (the bar's own value is under it).
+      body += svgTextOnPanel(start + x.bandwidth() + 4, ay + 4, `avg ${formatPercent(average)}`, {
         "font-size": SMALL_SIZE,
         fill: palette.ink,
       });

@@ -16,7 +16,7 @@ const PLOT_BOTTOM = 182;
 describe("categoryOddsBar", () => {
   it("categoryOddsBar(input) names the three categories and writes each as 'p%' over '(lo–hi%)'", () => {
     const text = chartText(checkChartSvg(categoryOddsBar(input)));
-    for (const label of ["Below normal", "Near normal", "Above normal", "18%", "(10–30%)", "29%", "(19–41%)", "53%", "(40–66%)", "Chance", "This season, 95% interval", "Average year", "49%", "19%", "32%"]) {
+    for (const label of ["Below normal", "Near normal", "Above normal", "18%", "(10–30%)", "29%", "(19–41%)", "53%", "(40–66%)", "Chance", "This season, 95% interval", "Average year", "avg 49%", "avg 19%", "avg 32%"]) {
       expect(text).toContain(label);
     }
   });
