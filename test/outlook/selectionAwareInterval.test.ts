@@ -144,6 +144,13 @@ describe("selectionAwareInterval against the outlook's own functions rebuilt res
   }
 });
 
+/** The index values with one index's values left out in the years `drop` picks (missing values for the tests). */
+function withoutYears(values: SelectionIntervalInput["indexValues"], name: string, drop: (year: number) => boolean): SelectionIntervalInput["indexValues"] {
+  const out = new Map(values);
+  out.set(name, new Map([...(values.get(name) as Map<number, number>)].filter(([year]) => !drop(year))));
+  return out;
+}
+
 describe("selectionAwareInterval resample by resample: each single-resample interval is that resample's odds, exactly", () => {
   // One resample gives lower = upper = its odds, so 30 seeds compare 30 resamples one by one (exactly for the phase
   // rule's counts; to 12 decimals for the curve, whose Newton iterations differ in rounding):
@@ -151,8 +158,7 @@ describe("selectionAwareInterval resample by resample: each single-resample inte
   const workspace = syntheticWorkspace({ effect: 1.1, seed: 8 });
   const calibration = runCalibration(workspace);
   const base = inputOf(workspace, { A: 0.9, B: -0.7 }, 1, 1);
-  const gappy = new Map(base.indexValues);
-  gappy.set("B", new Map([...(base.indexValues.get("B") as Map<number, number>)].filter(([year]) => year % 7 !== 3)));
+  const gappy = withoutYears(base.indexValues, "B", (year) => year % 7 === 3);
   const cases: { label: string; input: SelectionIntervalInput }[] = [
     { label: "joint cells allowed, B with gaps", input: { ...base, indexValues: gappy, jointMaxQ: 1, jointMinYears: 3 } },
     { label: "the outlook's own gate", input: { ...base, indexValues: gappy } },
@@ -247,8 +253,7 @@ describe("selectionAwareInterval against the map-based resample of the previous 
   const workspace = syntheticWorkspace({ effect: 1.3, seed: 17 });
   const calibration = runCalibration(workspace);
   const base = inputOf(workspace, { A: 1.1, B: -0.8 }, 120, 9);
-  const gappy = new Map(base.indexValues);
-  gappy.set("B", new Map([...(base.indexValues.get("B") as Map<number, number>)].filter(([year]) => year % 5 !== 1)));
+  const gappy = withoutYears(base.indexValues, "B", (year) => year % 5 === 1);
   for (const response of ["phase", "curve"] as const) {
     for (const gate of [{ jointMaxQ: 0.05, jointMinYears: 10 }, { jointMaxQ: 1, jointMinYears: 3 }]) {
       it(`response "${response}", q gate ${gate.jointMaxQ}, joint cells of at least ${gate.jointMinYears} years, one index with gaps`, () => {
