@@ -242,10 +242,10 @@ function exited(child: ChildProcess | null, ms: number): Promise<void> {
 
 const politeClosers = new WeakMap<OpenBrowser, () => Promise<void>>();
 
-/** Close politely within `ms`, then kill what still runs and remove the profile folder. */
+/** Close politely within `ms` (not at all when `ms` is 0), then kill what still runs and remove the profile folder. */
 async function closeEntry(entry: OpenBrowser, ms: number): Promise<void> {
   const polite = politeClosers.get(entry);
-  if (polite !== undefined) {
+  if (polite !== undefined && ms > 0) {
     await Promise.race([polite().catch(() => undefined), delay(ms)]);
   }
   if (isRunning(entry.process)) {
@@ -439,6 +439,21 @@ export class PdfPrinter implements HtmlPrinter {
    */
   close(): Promise<void> {
     this.#closing ??= closeEntry(this.#entry, CLOSE_TIMEOUT_MS);
+    return this.#closing;
+  }
+
+  /**
+   * End the browser at once, without the polite close: disconnect, kill its processes and remove the
+   * temporary profile. For when every PDF is written: the profile is thrown away, so there is nothing for a
+   * polite close to save, and it takes 50–90 ms the user would wait for. Safe to call twice, and after close().
+   *
+   * @returns when the browser's processes are gone (or were killed) and the folder is removed.
+   */
+  closeNow(): Promise<void> {
+    this.#closing ??= (async () => {
+      await this.#browser.disconnect().catch(() => undefined);
+      await closeEntry(this.#entry, 0);
+    })();
     return this.#closing;
   }
 }

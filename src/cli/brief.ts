@@ -373,7 +373,7 @@ export async function runBrief(region: string, options: BriefOptions, context: B
       outlook: toOutlookJson(outlook),
     };
   } finally {
-    await launched?.then((printer) => printer.close()).catch(() => undefined);
+    await launched?.then((printer) => printer.closeNow()).catch(() => undefined);
     mark("browser closed");
   }
 }

@@ -254,7 +254,7 @@ export async function runBriefBatch(regions: readonly string[], options: BriefOp
     }
     return { regions: outcomes, overviewPdf: resolve(pdfTarget), overviewCsv: resolve(csvTarget), failed };
   } finally {
-    await launching.then((printer) => printer.close()).catch(() => undefined);
+    await launching.then((printer) => printer.closeNow()).catch(() => undefined);
   }
 }
 

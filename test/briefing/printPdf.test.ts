@@ -282,3 +282,19 @@ describe("PdfPrinter.warmUp(a rehearsal that fails)", () => {
     expect(rehearsalOf(() => made)).toBe(made);
   });
 });
+
+describe("PdfPrinter.closeNow(): the browser ended at once once every PDF is written", () => {
+  it("leaves no browser process and no profile folder, is safe to call twice and after close(), and a print after it fails", async () => {
+    const own = await launchPrinter({});
+    const folder = own.userDataDir;
+    const printed = await own.print("<!DOCTYPE html><p>written before closing</p>", { paper: "a4", ...footer });
+    expect(flatText(await pdfPageTexts(printed.pdf))).toContain("written before closing");
+    expect(processesUsingProfile(folder).length).toBeGreaterThan(0);
+    await own.closeNow();
+    await own.closeNow();
+    await own.close();
+    expect(existsSync(folder)).toBe(false);
+    expect(processesUsingProfile(folder)).toEqual([]);
+    await expect(own.print("<p>late</p>", { paper: "a4", ...footer })).rejects.toThrow(/closed/);
+  }, 60_000);
+});
