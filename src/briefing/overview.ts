@@ -205,6 +205,30 @@ export function sortOverviewRows(rows: readonly OverviewRow[]): OverviewRow[] {
   return [...briefed, ...failed];
 }
 
+/**
+ * The rank of each row of {@link sortOverviewRows}' order: 1 for the highest odds, the same rank for rows with
+ * the same odds and interval (ranked 1, 1, 3), null for failed regions.
+ *
+ * @param sorted - rows in sortOverviewRows order.
+ * @returns one rank per row.
+ * @throws never.
+ * @example
+ * overviewRanks(sortOverviewRows([north35, south35, east20])); // => [1, 1, 3]
+ */
+export function overviewRanks(sorted: readonly OverviewRow[]): (number | null)[] {
+  const same = (a: OverviewChance, b: OverviewChance): boolean => a.estimate === b.estimate && a.lower === b.lower && a.upper === b.upper;
+  const ranks: (number | null)[] = [];
+  sorted.forEach((row, position) => {
+    if (row.status !== "briefed") {
+      ranks.push(null);
+      return;
+    }
+    const previous = sorted[position - 1];
+    ranks.push(position > 0 && previous !== undefined && previous.status === "briefed" && same(previous.chance, row.chance) ? (ranks[position - 1] as number) : position + 1);
+  });
+  return ranks;
+}
+
 /** CSV columns of the overview, in order. */
 export const OVERVIEW_CSV_COLUMNS: readonly string[] = Object.freeze([
   "rank",
@@ -257,10 +281,12 @@ function csvCell(value: string | number | boolean | null): string {
  */
 export function overviewCsv(rows: readonly OverviewRow[]): string {
   const lines = [OVERVIEW_CSV_COLUMNS.join(",")];
-  sortOverviewRows(rows).forEach((row, position) => {
+  const sorted = sortOverviewRows(rows);
+  const ranks = overviewRanks(sorted);
+  sorted.forEach((row, position) => {
     lines.push(
       [
-        row.status === "briefed" ? position + 1 : null,
+        ranks[position] ?? null,
         row.region,
         row.folder,
         row.status,
@@ -516,10 +542,11 @@ export function overviewHtml(rows: readonly OverviewRow[], options: OverviewPage
   const rowDates = (row: OverviewRow): string =>
     (datesDiffer && row.issued !== null ? `<div class="muted small">Issued ${escapeHtml(formatLongDate(row.issued))}</div>` : "") +
     (seasonsDiffer && row.season !== null ? `<div class="muted small">${escapeHtml(String(row.season))} season</div>` : "");
+  const ranks = overviewRanks(briefed);
   const body = briefed
     .map(
       (row, position) =>
-        `<tr><td class="num">${position + 1}</td><td><div class="strong">${escapeHtml(row.region)}</div><div class="muted small">${escapeHtml(row.folder)}</div>${rowDates(row)}</td>` +
+        `<tr><td class="num">${ranks[position] ?? ""}</td><td><div class="strong">${escapeHtml(row.region)}</div><div class="muted small">${escapeHtml(row.folder)}</div>${rowDates(row)}</td>` +
         `${chanceCell(row.chance)}${chanceCell(row.baseRate)}` +
         `<td class="small">${escapeHtml(comparedWords(row))}</td>` +
         `<td class="skill">${escapeHtml(row.skill ?? "Not known")}</td>` +

@@ -9,6 +9,7 @@ import {
   overviewDateNotes,
   overviewFooterText,
   overviewProvisionalNote,
+  overviewRanks,
   overviewHtml,
   overviewRowFromOutlook,
   overviewSkill,
@@ -244,5 +245,18 @@ describe("overviewProvisionalNote(rows): the regions whose odds use a provisiona
     const page = overviewHtml([...rows], PAGE);
     expect(page).toContain("Provisional index values: East (PMI, WSI); North (PMI).");
     expect(page).toContain("<h2>Cautions</h2>");
+  });
+});
+
+describe("overviewRanks(sorted rows): equal odds share a rank", () => {
+  it("ranks 1, 1, 3 when the first two have the same odds and interval, and gives failed regions none (CSV and page alike)", () => {
+    const rows = sortOverviewRows([
+      overviewRowFromOutlook(outlookJson("North", 0.35, 0.5), "north", null),
+      overviewRowFromOutlook(outlookJson("South", 0.35, 0.5), "south", null),
+      overviewRowFromOutlook(outlookJson("East", 0.2, 0.3), "east", null),
+      failedOverviewRow("bad", ["bad/region.json: broken"]),
+    ]);
+    expect(overviewRanks(rows)).toEqual([1, 1, 3, null]);
+    expect(overviewCsv(rows).split("\n").slice(1, 5).map((line) => line.split(",")[0])).toEqual(["1", "1", "3", ""]);
   });
 });
