@@ -10,7 +10,9 @@
 //      puppeteer-core, prints a trivial page to PDF and closes — against `firephase brief
 //      demo-region` (target: brief ≤ 1.5× the floor); and the print floor — the same script
 //      printing the briefing's own HTML with brief's print options — against both: how much of
-//      brief is the printing of its document, and what reading, computing and rendering add;
+//      brief is the printing of its document, and what reading, computing and rendering add; and
+//      the text floor — the same with every chart taken out — against the browser floor: what the
+//      briefing's text alone costs to print;
 //   c. a batch: `firephase brief r01 … r20` on 20 regions generated from the demo into a temp
 //      folder (each a copy with its own seed and name, and every 20th fire event left out at its own
 //      offset, so no two are the same), against one `brief`: regions per minute and the marginal
@@ -217,9 +219,9 @@ const { tmpdir } = require("node:os");
  * `brief --html`) with the options `brief` prints with (A4, tagged, background, the page footer with
  * its embedded font): what printing this document costs by itself, with nothing computed.
  */
-function writePrintFloorScript(folder, browserPath, htmlPath, footerFontCss) {
+function writePrintFloorScript(folder, browserPath, htmlPath, footerFontCss, name = "print-floor.cjs") {
   const puppeteerEntry = createRequire(join(root, "package.json")).resolve("puppeteer-core");
-  const path = join(folder, "print-floor.cjs");
+  const path = join(folder, name);
   const footerTemplate =
     `<style>${footerFontCss}</style><div style="font-family:'Source Sans 3',sans-serif;font-size:8pt;width:100%;margin:0 15mm;display:flex;justify-content:space-between;">` +
     `<span>floor</span><span>page <span class="pageNumber"></span> of <span class="totalPages"></span></span></div>`;
@@ -245,6 +247,11 @@ const { tmpdir } = require("node:os");
 `,
   );
   return path;
+}
+
+/** The briefing's HTML with every chart emptied: each <svg> keeps its own box (so the pages break as before) but draws nothing. */
+function withoutCharts(html) {
+  return html.replace(/(<svg\b[^>]*>)[\s\S]*?<\/svg>/g, "$1</svg>");
 }
 
 /**
@@ -344,6 +351,12 @@ try {
     const printFloorScript = writePrintFloorScript(scratch, browser.executablePath, htmlPath, embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]));
     const printed = pairs("print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
     const floorOnly = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
+    // The same again with every chart taken out (each <svg> emptied but keeping its box,
+    // so the pages break as before): what printing the briefing's text alone costs.
+    const textPath = join(scratch, "briefing-text.html");
+    writeFileSync(textPath, withoutCharts(readFileSync(htmlPath, "utf8")));
+    const textFloorScript = writePrintFloorScript(scratch, browser.executablePath, textPath, embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]), "text-floor.cjs");
+    const textOnly = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "text floor (the briefing's HTML, no charts)", () => wholeProcess([textFloorScript], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
     // One more cold brief with its stage timings (FIREPHASE_TIMINGS=1): where the user's wait goes.
     const staged = spawnSync(process.execPath, briefArgs([demoCopy], ["--out", out]), { cwd: scratch, encoding: "utf8", env: { ...process.env, FIREPHASE_TIMINGS: "1" } });
     const stages = [...(staged.stderr ?? "").matchAll(/^firephase: timing (\d+) ms (.+)$/gm)].map((match) => `${match[1].padStart(6)} ms  ${match[2]}`);
@@ -351,6 +364,7 @@ try {
     headline.push(
       `brief demo-region ÷ browser floor: ${brief.ratio.toFixed(2)}× (target ≤ 1.5×; ${brief.b.median.toFixed(0)} ms against ${brief.a.median.toFixed(0)} ms)${brief.cpuRatio === null ? "" : `; CPU time of the node process ${brief.cpuRatio.toFixed(2)}×`}`,
       `  of which printing the briefing's own ${pdfPages(out)}-page document: print floor ÷ browser floor ${floorOnly.ratio.toFixed(2)}× (${floorOnly.b.median.toFixed(0)} ms against ${floorOnly.a.median.toFixed(0)} ms)`,
+      `  and its text alone, every chart taken out: text floor ÷ browser floor ${textOnly.ratio.toFixed(2)}× (${textOnly.b.median.toFixed(0)} ms against ${textOnly.a.median.toFixed(0)} ms)`,
       `  brief demo-region ÷ print floor: ${printed.ratio.toFixed(2)}× (${printed.b.median.toFixed(0)} ms against ${printed.a.median.toFixed(0)} ms): what reading, computing and rendering add to printing the document`,
     );
   }
