@@ -348,14 +348,15 @@ try {
     // The same browser printing the briefing's own document: what no computation or load order can remove.
     const htmlPath = join(scratch, "briefing.html");
     wholeProcess(briefArgs([demoCopy], ["--out", join(scratch, "for-html.pdf"), "--html", htmlPath]), scratch);
-    const printFloorScript = writePrintFloorScript(scratch, browser.executablePath, htmlPath, embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]));
+    const footerFontCss = embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]);
+    const printFloorScript = writePrintFloorScript(scratch, browser.executablePath, htmlPath, footerFontCss);
     const printed = pairs("print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), "firephase brief demo-region", () => wholeProcess(briefArgs([demoCopy], ["--out", out]), scratch), PAIRS);
     const floorOnly = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "print floor (plain script, the briefing's HTML)", () => wholeProcess([printFloorScript], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
     // The same again with every chart taken out (each <svg> emptied but keeping its box,
     // so the pages break as before): what printing the briefing's text alone costs.
     const textPath = join(scratch, "briefing-text.html");
     writeFileSync(textPath, withoutCharts(readFileSync(htmlPath, "utf8")));
-    const textFloorScript = writePrintFloorScript(scratch, browser.executablePath, textPath, embeddedFontCss([{ weight: 400, style: "normal" }], ["latin"]), "text-floor.cjs");
+    const textFloorScript = writePrintFloorScript(scratch, browser.executablePath, textPath, footerFontCss, "text-floor.cjs");
     const textOnly = pairs("browser floor (plain script, trivial page)", () => wholeProcess([floorScript], scratch), "text floor (the briefing's HTML, no charts)", () => wholeProcess([textFloorScript], scratch), Math.max(3, Math.ceil(PAIRS / 2)));
     // One more cold brief with its stage timings (FIREPHASE_TIMINGS=1): where the user's wait goes.
     const staged = spawnSync(process.execPath, briefArgs([demoCopy], ["--out", out]), { cwd: scratch, encoding: "utf8", env: { ...process.env, FIREPHASE_TIMINGS: "1" } });
